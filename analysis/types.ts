@@ -1,0 +1,93 @@
+/**
+ * Shared types of the analysis engine: the contracts between its stages.
+ * reader (io/) -> phase stage (phase/) -> spectrum accumulators (spectrum/) -> figures (linewidth/, noise/)
+ * All arrays are typed arrays; no stage mutates what it is given.
+ * Units: Hz, seconds, radians; every S_ν is one-sided in Hz²/Hz.
+ */
+
+export type CaptureKind = 'phase' | 'iq' | 'beat' | 'frequency';
+export type CaptureFormat = 'csv' | 'npy' | 'wav' | 'raw';
+export type RawDtype = 'int16' | 'int32' | 'float32' | 'float64';
+export type ByteOrder = 'little' | 'big';
+export type WindowName = 'hann' | 'blackman-harris' | 'flat-top';
+
+/** One block of samples out of a reader. `channels` has length 1 (real) or 2 (I, Q), equal lengths. */
+export interface SampleBlock {
+  channels: Float64Array[];
+}
+
+/** What a reader learned from the file itself (header, time column). Never used to allocate. */
+export interface ReaderInfo {
+  format: CaptureFormat;
+  channelCount: 1 | 2;
+  /** sample rate the file states (WAV header, CSV time column), if any */
+  sampleRateHz?: number;
+  /** sample count the header claims, if any (checked against the bytes actually present) */
+  declaredSamples?: number;
+  /** free-form facts for a preview: column names, dtype, byte order, header fields */
+  details: Record<string, string | number | boolean>;
+}
+
+/** A streaming reader: bytes in, blocks of samples out, bounded memory. */
+export interface StreamingReader {
+  /** Feed the next chunk of the file; returns the sample blocks completed by it (possibly none). */
+  push(chunk: Uint8Array): SampleBlock[];
+  /** The file has ended; returns the last blocks, or throws AnalysisInputError if truncated. */
+  end(): SampleBlock[];
+  /** Known once the header has been read (after the first push that completes it). */
+  readonly info: ReaderInfo | undefined;
+  /** Samples (per channel) emitted so far. */
+  readonly samplesOut: number;
+}
+
+/** A one-sided frequency-noise PSD on some frequency grid (linear Welch grid or log grid). */
+export interface Spectrum {
+  frequencyHz: Float64Array;
+  /** S_ν(f), one-sided, Hz²/Hz */
+  psd: Float64Array;
+}
+
+export interface WhiteFloor {
+  valueHz2PerHz: number;
+  bandHz: [number, number];
+}
+
+export interface BetaLineResult {
+  observationTimeS: number;
+  /** highest frequency where S_ν crosses β(f) = 8 ln2 f / π²; null when S_ν never exceeds it */
+  crossingHz: number | null;
+  areaHz2: number;
+  /** √(8 ln2 · A) */
+  linewidthHz: number;
+  warnings: string[];
+}
+
+export interface LineshapeResult {
+  /** null when the line is dominated by a coherent carrier at this T0 (FWHM resolution-limited) */
+  fwhmHz: number | null;
+  carrierDominated: boolean;
+  /** a sampled lineshape for display: offset from the centre (Hz, >= 0) and power normalised to 1 at 0 */
+  offsetHz: Float64Array;
+  power: Float64Array;
+}
+
+export interface NoiseModel {
+  /** a₀ in S_ν = a₀ + a₋₁/f + a₋₂/f² */
+  whiteHz2PerHz: number;
+  /** a₋₁ */
+  flickerHz2: number;
+  /** a₋₂ */
+  randomWalkHz3: number;
+  /** frequency where a₋₁/f = a₀ (null when a₋₁ <= 0 or a₀ <= 0) */
+  cornerHz: number | null;
+  bandHz: [number, number];
+}
+
+export interface Spur {
+  frequencyHz: number;
+  /** height above the noise model, dB */
+  heightDb: number;
+}
+
+/** Progress callback: fraction 0..1 of the work and the stage name. */
+export type ProgressFn = (fraction: number, stage: string) => void;

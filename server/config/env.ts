@@ -1,0 +1,51 @@
+/**
+ * Configuration: every environment variable the server reads, parsed once with zod at boot.
+ * A wrong value stops the process with one line per bad variable.
+ */
+import { readFileSync, existsSync } from 'node:fs';
+import path from 'node:path';
+import { z } from 'zod';
+
+export const projectRoot = path.resolve(import.meta.dirname, '..', '..');
+
+const port = z.coerce.number().int().min(1).max(65535);
+
+const EnvSchema = z.object({
+  NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
+  HOST: z.string().min(1).default('127.0.0.1'),
+  PORT: port.default(8080),
+  PHASELOOM_PUBLIC_URL: z.url().optional(),
+  PHASELOOM_DB_HOST: z.string().min(1).default('127.0.0.1'),
+  PHASELOOM_DB_PORT: port.default(3307),
+  PHASELOOM_DB_NAME: z.string().regex(/^[A-Za-z0-9_]+$/, 'letters, digits and _ only').default('phaseloom'),
+  PHASELOOM_DB_USER: z.string().min(1).default('phaseloom'),
+  PHASELOOM_DB_PASSWORD: z.string().optional(),
+  PHASELOOM_DB_DATADIR: z.string().default('.data/mariadb'),
+  PHASELOOM_STORAGE_DIR: z.string().default('storage'),
+  PHASELOOM_MAX_UPLOAD_BYTES: z.coerce.number().int().positive().default(2 * 1024 ** 3),
+  PHASELOOM_SMTP_HOST: z.string().default('127.0.0.1'),
+  PHASELOOM_SMTP_PORT: port.default(2525),
+  PHASELOOM_MAIL_FROM: z.string().default('Phaseloom <no-reply@phaseloom.invalid>'),
+  PHASELOOM_WORKERS: z.coerce.number().int().min(0).optional(),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+});
+
+export type Env = z.infer<typeof EnvSchema> & { dbPassword: string; storageDir: string };
+
+/** Parses the environment; throws an Error whose message lists every bad variable, one per line. */
+export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
+  const parsed = EnvSchema.safeParse(source);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`);
+    throw new Error(`bad configuration:\n${lines.join('\n')}`);
+  }
+  const env = parsed.data;
+  const resolve = (p: string) => (path.isAbsolute(p) ? p : path.join(projectRoot, p));
+  let dbPassword = env.PHASELOOM_DB_PASSWORD ?? '';
+  if (!env.PHASELOOM_DB_PASSWORD) {
+    // scripts/db.sh generates the local password on first use, beside the data folder.
+    const secretFile = `${resolve(env.PHASELOOM_DB_DATADIR)}.secret`;
+    if (existsSync(secretFile)) dbPassword = readFileSync(secretFile, 'utf8').trim();
+  }
+  return { ...env, dbPassword, storageDir: resolve(env.PHASELOOM_STORAGE_DIR) };
+}

@@ -52,6 +52,19 @@ export interface WhiteFloor {
   bandHz: [number, number];
 }
 
+/** The white floor with how it was found (analysis/linewidth/white-floor.ts). */
+export interface WhiteFloorResult extends WhiteFloor {
+  /** Lorentzian FWHM π·S_ν,white, Hz */
+  intrinsicLinewidthHz: number;
+  /** 'auto': flattest low band found by the search; 'band': mean over the band the caller gave */
+  mode: 'auto' | 'band';
+  /** grid points averaged (after spur exclusion) */
+  pointCount: number;
+  /** log-log slope d ln S_ν / d ln f fitted over the band (0 for a pure white floor) */
+  slope: number;
+  warnings: string[];
+}
+
 export interface BetaLineResult {
   observationTimeS: number;
   /** highest frequency where S_ν crosses β(f) = 8 ln2 f / π²; null when S_ν never exceeds it */
@@ -59,6 +72,12 @@ export interface BetaLineResult {
   areaHz2: number;
   /** √(8 ln2 · A) */
   linewidthHz: number;
+  /** S_ν is still above β(f) at the top of the band: the area (and the linewidth) are lower bounds */
+  truncated: boolean;
+  /** 1/T0 ≥ f_x (A = 0): the line is a coherent carrier at this T0 */
+  carrierDominated: boolean;
+  /** the intervals [lo, hi] (Hz) above 1/T0 where S_ν > β, whose union gives the area */
+  intervalsHz: [number, number][];
   warnings: string[];
 }
 
@@ -69,6 +88,12 @@ export interface LineshapeResult {
   /** a sampled lineshape for display: offset from the centre (Hz, >= 0) and power normalised to 1 at 0 */
   offsetHz: Float64Array;
   power: Float64Array;
+  observationTimeS: number;
+  /** Γ(τ→∞) = exp(−∫_{1/T0}^∞ S_ν/f² df): the fraction of the power left in the coherent carrier */
+  carrierFraction: number;
+  /** white level appended analytically above the top of the grid, Hz²/Hz */
+  tailLevelHz2PerHz: number;
+  warnings: string[];
 }
 
 export interface NoiseModel {
@@ -81,6 +106,18 @@ export interface NoiseModel {
   /** frequency where a₋₁/f = a₀ (null when a₋₁ <= 0 or a₀ <= 0) */
   cornerHz: number | null;
   bandHz: [number, number];
+}
+
+/** A fitted noise model with how the fit went (analysis/noise/model-fit.ts). */
+export interface NoiseModelFit extends NoiseModel {
+  /** grid points used (after excluding points standing > 10 dB above the model) */
+  pointCount: number;
+  /** points left out as spurs */
+  excludedCount: number;
+  iterations: number;
+  /** Σ (S − M)²/M² / (n − p): ≈ 1/K_eff for a χ²-distributed Welch estimate that fits */
+  reducedChiSquare: number;
+  warnings: string[];
 }
 
 export interface Spur {

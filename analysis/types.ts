@@ -128,3 +128,70 @@ export interface Spur {
 
 /** Progress callback: fraction 0..1 of the work and the stage name. */
 export type ProgressFn = (fraction: number, stage: string) => void;
+
+// ---- phase and spectrum stages (analysis/phase/, analysis/spectrum/) ----
+
+export type DetrendName = 'constant' | 'linear';
+/** 'density': one-sided PSD, unit²/Hz; 'spectrum': one-sided power spectrum, unit² (a sine of amplitude A on a bin reads A²/2) */
+export type SpectrumScaling = 'density' | 'spectrum';
+
+/** A Welch estimate on the linear grid f_m = m·fs/L, m = 0..⌊L/2⌋ (analysis/spectrum/welch.ts). */
+export interface WelchSpectrum extends Spectrum {
+  sampleRateHz: number;
+  window: WindowName;
+  segmentLength: number;
+  /** hop D between segment starts, samples (overlap = L − D) */
+  hop: number;
+  detrend: DetrendName;
+  scaling: SpectrumScaling;
+  /** number of segments averaged, K */
+  averages: number;
+  /** equivalent number of independent averages K_eff (Welch 1967; METHODS 1.3) */
+  equivalentAverages: number;
+  /** equivalent noise bandwidth fs·Σw²/(Σw)², Hz (the RBW of a bin) */
+  enbwHz: number;
+  /** samples pushed in, and samples covered by the K segments */
+  samplesSeen: number;
+  samplesUsed: number;
+}
+
+/** A stitched multi-resolution estimate on a log-spaced grid (analysis/spectrum/log-frequency.ts). */
+export interface LogFrequencySpectrum extends Spectrum {
+  /** segments averaged behind each point (K of its stage; summed over merged bins after log binning) */
+  averages: Float64Array;
+  /** frequency resolution fs_stage/L behind each point, Hz */
+  resolutionHz: Float64Array;
+  /** decimation stage behind each point (0 = full rate, s = rate fs/2^s) */
+  stage: Uint8Array;
+  /** lowest frequency meeting the stitching rule (bin ≥ minBin, K ≥ minAverages); points below it are the deepest stage's first bins */
+  reliableFromHz: number;
+  sampleRateHz: number;
+  segmentLength: number;
+  window: WindowName;
+  samplesSeen: number;
+}
+
+/** What the phase stage learned while turning a capture into frequency samples (analysis/phase/frequency-stage.ts). */
+export interface FrequencyStageSummary {
+  kind: CaptureKind;
+  /** samples (per channel) pushed in */
+  inputSamples: number;
+  /** frequency samples emitted */
+  frequencySamples: number;
+  /** rate of the frequency samples, Hz (input rate / decimation) */
+  outputRateHz: number;
+  /** mean frequency of the record, Hz (for a beat note: the mean beat frequency, IF included) */
+  carrierOffsetHz: number;
+  /** least-squares slope of the frequency against time, Hz/s */
+  driftHzPerS: number;
+  /** beat note only: the intermediate frequency used for the mix-down, and how it was obtained */
+  intermediateFrequencyHz?: number;
+  intermediateFrequencySource?: 'given' | 'spectrum-peak';
+  /** beat note only: flat pass band ±B of the complex low-pass, Hz; S_ν is trusted up to about B/2 */
+  bandwidthHz?: number;
+  /** IQ/beat: samples whose |z|² fell below 1e-6 × the running mean |z|² (random phase) */
+  lowAmplitudeSamples: number;
+  /** samples whose wrapped phase step exceeded 0.8π (unwrapping may have failed) */
+  largeStepSamples: number;
+  warnings: string[];
+}

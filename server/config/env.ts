@@ -27,6 +27,19 @@ const EnvSchema = z.object({
   PHASELOOM_SMTP_PORT: port.default(2525),
   PHASELOOM_MAIL_FROM: z.string().default('Phaseloom <no-reply@phaseloom.invalid>'),
   PHASELOOM_WORKERS: z.coerce.number().int().min(0).optional(),
+  // Express 'trust proxy': false (default; req.ip and https come from the socket), true, a hop count,
+  // or addresses/subnets ('loopback', '10.0.0.0/8'). Set it when a reverse proxy terminates TLS so that
+  // the session cookie gets Secure and rate limits see the client's address.
+  PHASELOOM_TRUST_PROXY: z
+    .string()
+    .default('false')
+    .transform((v): boolean | number | string =>
+      v === 'false' ? false : v === 'true' ? true : /^\d+$/.test(v) ? Number(v) : v,
+    ),
+  // Sign-in attempts per IP address and e-mail, and sign-ups per IP address, in one window.
+  PHASELOOM_SIGNIN_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
+  PHASELOOM_SIGNUP_RATE_LIMIT: z.coerce.number().int().min(1).default(20),
+  PHASELOOM_AUTH_RATE_WINDOW_MINUTES: z.coerce.number().positive().default(15),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
 });
 

@@ -30,4 +30,5 @@ export function knexConfig(env: Env = loadEnv()): Knex.Config {
   };
 }
 
-export default knexConfig();
+// A function, so that importing this file never reads the environment (the knex CLI calls it).
+export default () => knexConfig();

@@ -1,0 +1,81 @@
+/**
+ * createApp(deps): the Express application — API under /api and, when `clientDir` is given, the built
+ * client with SPA fallback. Never listens (server/index.ts does). Dependencies are passed in.
+ */
+import express, { Router, type Express } from 'express';
+import type { Knex } from 'knex';
+import type { Logger } from 'pino';
+import type { Env } from './config/env';
+import { notFound } from './errors';
+import { loadBenchAccess } from './middleware/bench-access';
+import { clientRoutes } from './middleware/client';
+import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { originCheck } from './middleware/origin-check';
+import { requestLogger } from './middleware/request-logger';
+import { securityHeaders } from './middleware/security-headers';
+import { requireUser, sessionMiddleware } from './middleware/session';
+import type { AuthRateLimits } from './modules/auth/auth-rate-limits';
+import { authRouter } from './modules/auth/auth.router';
+import { benchesRouter } from './modules/benches/benches.router';
+import { lasersRouter } from './modules/lasers/lasers.router';
+import { membersRouter } from './modules/members/members.router';
+import { createServices, type Services } from './services';
+
+export interface AppDeps {
+  db: Knex;
+  env: Env;
+  logger: Logger;
+  /** Defaults to createServices(db). */
+  services?: Services;
+  /** Folder of the built client to serve with SPA fallback; omit for an API-only app. */
+  clientDir?: string;
+  /** Defaults from PHASELOOM_SIGNIN_RATE_LIMIT, PHASELOOM_SIGNUP_RATE_LIMIT, PHASELOOM_AUTH_RATE_WINDOW_MINUTES. */
+  rateLimits?: AuthRateLimits;
+  /** Mounts extra routes under /api after the app's own (tests use it to inject a failing route). */
+  extraApiRoutes?: (api: Router) => void;
+}
+
+export function rateLimitsFromEnv(env: Env): AuthRateLimits {
+  return {
+    windowMs: env.PHASELOOM_AUTH_RATE_WINDOW_MINUTES * 60_000,
+    signIn: { limit: env.PHASELOOM_SIGNIN_RATE_LIMIT },
+    signUp: { limit: env.PHASELOOM_SIGNUP_RATE_LIMIT },
+  };
+}
+
+export function createApp(deps: AppDeps): Express {
+  const { env, logger } = deps;
+  const services = deps.services ?? createServices(deps.db);
+  const https = env.PHASELOOM_PUBLIC_URL?.startsWith('https:') ?? false;
+
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', env.PHASELOOM_TRUST_PROXY);
+
+  app.use(requestLogger(logger));
+  app.use(securityHeaders({ https }));
+
+  const api = Router();
+  api.use((_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
+  api.use(originCheck({ publicUrl: env.PHASELOOM_PUBLIC_URL }));
+  api.use(express.json({ limit: '1mb' }));
+  api.use(sessionMiddleware(services.auth));
+
+  api.use(authRouter(services.auth, deps.rateLimits ?? rateLimitsFromEnv(env)));
+  api.use('/benches', requireUser);
+  api.use('/benches/:benchId', loadBenchAccess(services.benches));
+  api.use('/benches/:benchId/members', membersRouter(services.members));
+  api.use('/benches/:benchId/lasers', lasersRouter(services.lasers));
+  api.use('/benches', benchesRouter(services.benches));
+  deps.extraApiRoutes?.(api);
+  api.use(apiNotFound);
+
+  app.use('/api', api);
+  if (deps.clientDir) app.use(clientRoutes(deps.clientDir));
+  app.use((req, _res, next) => next(notFound(`nothing at ${req.method} ${req.originalUrl.split('?')[0]}`)));
+  app.use(errorHandler(logger));
+  return app;
+}

@@ -4,11 +4,28 @@
  * Usage:
  *   import { betaLine, betaSeparation } from '../analysis/linewidth/beta-line';
  *   const r = betaLine(spectrum, { observationTimeS: 1e-2 });          // any grid (log or linear)
- *   r.linewidthHz; r.areaHz2; r.crossingHz; r.truncated; r.carrierDominated; r.warnings
+ *   r.linewidthHz; r.areaHz2; r.crossingHz; r.truncated; r.carrierDominated; r.intervalsHz; r.warnings
  *   betaSeparation(1e4);                                               // β(f) = 8 ln2 f/π², Hz²/Hz
+ *
+ * Method: G. Di Domenico, S. Schilt, P. Thomann, "Simple approach to the relation between laser
+ * frequency noise and laser line shape", Appl. Opt. 49(25), 4801–4807 (2010). One-sided S_ν [Hz²/Hz]:
+ *   β(f) = 8 ln2 · f / π²                                   [Hz²/Hz]
+ *   A    = ∫_{1/T0}^{fmax} H(S_ν(f) − β(f)) · S_ν(f) df      [Hz²]  (H = unit step)
+ *   FWHM ≈ √(8 ln2 · A)                                      [Hz]
+ * Rules (Phaseloom METHODS 3.3): the area is the union of every interval where S_ν > β (spurs and
+ * servo bumps make several); it starts exactly at 1/T0 with a partial first bin; the crossings are
+ * exact for the interpolated spectrum. Between grid points S_ν is the power law through them
+ * (a straight line on log-log axes; a straight line in f where a value is 0), so on every piece
+ * S_ν/β is monotonic: at most one crossing, found in closed form, and the piece's area is exact.
+ * Warnings: S_ν still above β at the top of the band → area truncated (a lower bound);
+ * no area above 1/T0 (1/T0 >= f_x) → "line dominated by a coherent carrier at this T0".
+ * Defaults: maxHz = the top grid frequency.
+ * Worked check: white S_ν = h0: f_x = π²h0/(8 ln2), A = h0(f_x − 1/T0) → FWHM = π·h0 as T0 → ∞.
  */
 
+import { AnalysisInputError } from '../errors';
 import type { BetaLineResult, Spectrum } from '../types';
+import { checkSpectrum, firstIndexAtOrAbove, psdAt } from './spectrum-grid';
 
 export interface BetaLineOptions {
   /** observation time T0 (s): the area starts at 1/T0 */
@@ -17,13 +34,162 @@ export interface BetaLineOptions {
   maxHz?: number;
 }
 
+/** slope of the β line, c = 8 ln2 / π² (Hz²/Hz per Hz) */
+const BETA_SLOPE = (8 * Math.LN2) / (Math.PI * Math.PI);
+
 /** β(f) = 8 ln2 · f / π², Hz²/Hz. */
 export function betaSeparation(frequencyHz: number): number {
-  return (8 * Math.LN2 * frequencyHz) / (Math.PI * Math.PI);
+  return BETA_SLOPE * frequencyHz;
+}
+
+interface ResolvedBetaLineOptions {
+  observationTimeS: number;
+  lowHz: number;
+  startHz: number;
+  maxHz: number;
+  warnings: string[];
+}
+
+function resolveBetaLineOptions(spectrum: Spectrum, options: BetaLineOptions): ResolvedBetaLineOptions {
+  checkSpectrum(spectrum, 'betaLine');
+  const f = spectrum.frequencyHz;
+  const t0 = options?.observationTimeS;
+  if (typeof t0 !== 'number' || !Number.isFinite(t0) || t0 <= 0) {
+    throw new AnalysisInputError(`betaLine: observationTimeS must be a positive finite number, got ${t0}`);
+  }
+  const top = f[f.length - 1];
+  const maxHz = options.maxHz ?? top;
+  if (!Number.isFinite(maxHz) || maxHz <= 0 || maxHz > top) {
+    throw new AnalysisInputError(`betaLine: maxHz must be in (0, ${top}] (the top of the grid), got ${maxHz}`);
+  }
+  const lowHz = 1 / t0;
+  if (lowHz >= maxHz) {
+    throw new AnalysisInputError(`betaLine: 1/T0 = ${lowHz} Hz must lie below the top of the band, ${maxHz} Hz`);
+  }
+  const warnings: string[] = [];
+  const firstPositive = f[0] > 0 ? f[0] : f[1];
+  let startHz = lowHz;
+  if (lowHz < firstPositive) {
+    warnings.push(
+      `the spectrum starts at ${firstPositive} Hz, above 1/T0 = ${lowHz} Hz: the area below ${firstPositive} Hz is missing (a lower bound)`,
+    );
+    startHz = firstPositive;
+  }
+  return { observationTimeS: t0, lowHz, startHz, maxHz, warnings };
+}
+
+/** ∫_u^v of the piece through (u, su), (v, sv) — power law when possible, else straight line. */
+function pieceIntegral(u: number, su: number, v: number, sv: number, a: number, b: number): number {
+  if (b <= a) return 0;
+  if (u > 0 && su > 0 && sv > 0) {
+    const p = Math.log(sv / su) / Math.log(v / u);
+    // ∫_a^b su (f/u)^p df = su·u/(p+1)·[(b/u)^(p+1) − (a/u)^(p+1)];  p = −1 → su·u·ln(b/a)
+    if (Math.abs(p + 1) < 1e-12) return su * u * Math.log(b / a);
+    const q = p + 1;
+    const ea = Math.exp(q * Math.log(a / u));
+    const eb = Math.exp(q * Math.log(b / u));
+    return ((su * u) / q) * (eb - ea);
+  }
+  const m = (sv - su) / (v - u);
+  const sa = su + m * (a - u);
+  const sb = su + m * (b - u);
+  return 0.5 * (sa + sb) * (b - a);
+}
+
+/** Where S_ν = β on the piece (du = su − βu and dv = sv − βv have opposite signs). */
+function pieceCrossing(u: number, su: number, v: number, sv: number, du: number, dv: number): number {
+  if (u > 0 && su > 0 && sv > 0) {
+    const p = Math.log(sv / su) / Math.log(v / u);
+    // S/β = (su/(c u))·(f/u)^(p−1) = 1  →  f = u·(c u/su)^(1/(p−1))
+    const x = u * Math.exp(Math.log((BETA_SLOPE * u) / su) / (p - 1));
+    return Math.min(v, Math.max(u, x));
+  }
+  return u + (du / (du - dv)) * (v - u);
 }
 
 export function betaLine(spectrum: Spectrum, options: BetaLineOptions): BetaLineResult {
-  void spectrum;
-  void options;
-  throw new Error('betaLine: not implemented yet');
+  const o = resolveBetaLineOptions(spectrum, options);
+  const f = spectrum.frequencyHz;
+  const s = spectrum.psd;
+  const warnings = o.warnings;
+
+  // nodes: every grid point from the first positive one up to maxHz, plus 1/T0 (partial first bin) and maxHz
+  const firstPositiveIndex = f[0] > 0 ? 0 : 1;
+  const nodeHz: number[] = [];
+  const nodePsd: number[] = [];
+  const scanFrom = Math.min(f[firstPositiveIndex], o.startHz);
+  const pushNode = (x: number) => {
+    nodeHz.push(x);
+    nodePsd.push(psdAt(f, s, x));
+  };
+  pushNode(scanFrom);
+  let startInserted = scanFrom === o.startHz;
+  for (let i = firstIndexAtOrAbove(f, scanFrom); i < f.length && f[i] < o.maxHz; i++) {
+    if (!startInserted && f[i] >= o.startHz) {
+      if (f[i] > o.startHz) pushNode(o.startHz);
+      startInserted = true;
+    }
+    if (f[i] > nodeHz[nodeHz.length - 1]) pushNode(f[i]);
+  }
+  if (!startInserted) pushNode(o.startHz);
+  if (o.maxHz > nodeHz[nodeHz.length - 1]) pushNode(o.maxHz);
+
+  let area = 0;
+  let highestDownCrossing: number | null = null;
+  const intervals: [number, number][] = [];
+  let openAt: number | null = null;
+  for (let k = 0; k + 1 < nodeHz.length; k++) {
+    const u = nodeHz[k];
+    const v = nodeHz[k + 1];
+    const su = nodePsd[k];
+    const sv = nodePsd[k + 1];
+    const du = su - BETA_SLOPE * u; // S_ν − β at each end
+    const dv = sv - BETA_SLOPE * v;
+    const counts = u >= o.startHz; // the area starts exactly at 1/T0 (a node)
+    if (du > 0 && dv > 0) {
+      if (counts) {
+        area += pieceIntegral(u, su, v, sv, u, v);
+        if (openAt === null) openAt = u;
+      }
+    } else if (du > 0 || dv > 0) {
+      const x = pieceCrossing(u, su, v, sv, du, dv);
+      if (du > 0) {
+        // leaving the region above β
+        highestDownCrossing = x;
+        if (counts) {
+          area += pieceIntegral(u, su, v, sv, u, x);
+          intervals.push([openAt ?? u, x]);
+          openAt = null;
+        }
+      } else if (counts) {
+        // entering it
+        area += pieceIntegral(u, su, v, sv, x, v);
+        openAt = x;
+      }
+    }
+  }
+  const lastExcess = nodePsd[nodePsd.length - 1] - BETA_SLOPE * o.maxHz;
+  const truncated = lastExcess > 0;
+  if (openAt !== null) intervals.push([openAt, o.maxHz]);
+  if (truncated) {
+    warnings.push(
+      `S_ν is still above the β line at the top of the band (${o.maxHz} Hz): the area is truncated and the linewidth is a lower bound`,
+    );
+  }
+  const carrierDominated = !(area > 0);
+  if (carrierDominated) {
+    const where = highestDownCrossing === null ? 'S_ν never rises above the β line' : `f_x = ${highestDownCrossing.toPrecision(4)} Hz`;
+    warnings.push(`line dominated by a coherent carrier at this T0: 1/T0 = ${o.lowHz.toPrecision(4)} Hz, ${where}`);
+  }
+  return {
+    observationTimeS: o.observationTimeS,
+    crossingHz: truncated ? null : highestDownCrossing,
+    areaHz2: area,
+    // FWHM ≈ √(8 ln2 · A)
+    linewidthHz: Math.sqrt(8 * Math.LN2 * area),
+    truncated,
+    carrierDominated,
+    intervalsHz: intervals,
+    warnings,
+  };
 }

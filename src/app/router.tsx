@@ -1,0 +1,60 @@
+/**
+ * The route table. Every page's loader fills the query cache with the same `queryOptions` its
+ * component reads with `useSuspenseQuery`, so a page renders with its data or not at all; every
+ * route has an error boundary with a retry.
+ */
+import type { QueryClient } from '@tanstack/react-query';
+import { createBrowserRouter, redirect } from 'react-router';
+import { paths } from '../config/paths';
+import { accountLoader, AccountRoute } from './routes/account';
+import { AppLayout, appLayoutLoader } from './routes/app-layout';
+import { benchHomeHandle, benchHomeLoader, BenchHomeRoute } from './routes/bench-home';
+import { benchMembersLoader, BenchMembersRoute } from './routes/bench-members';
+import { benchesLoader, BenchesRoute } from './routes/benches';
+import { NotFoundRoute } from './routes/not-found';
+import { RootHydrateFallback, RootLayout } from './routes/root-layout';
+import { RootError, RouteError } from './routes/route-error';
+import { signInLoader, SignInRoute } from './routes/sign-in';
+import { signUpLoader, SignUpRoute } from './routes/sign-up';
+
+export function createAppRouter(queryClient: QueryClient) {
+  return createBrowserRouter([
+    {
+      id: 'root',
+      Component: RootLayout,
+      HydrateFallback: RootHydrateFallback,
+      ErrorBoundary: RootError,
+      children: [
+        { path: paths.home.path, loader: () => redirect(paths.benches.list.getHref()) },
+        { path: paths.auth.signIn.path, loader: signInLoader(queryClient), Component: SignInRoute, ErrorBoundary: RootError },
+        { path: paths.auth.signUp.path, loader: signUpLoader(queryClient), Component: SignUpRoute, ErrorBoundary: RootError },
+        {
+          id: 'app',
+          loader: appLayoutLoader(queryClient),
+          Component: AppLayout,
+          ErrorBoundary: RootError,
+          children: [
+            { path: paths.benches.list.path, loader: benchesLoader(queryClient), Component: BenchesRoute, ErrorBoundary: RouteError },
+            {
+              path: paths.benches.home.path,
+              loader: benchHomeLoader(queryClient),
+              Component: BenchHomeRoute,
+              ErrorBoundary: RouteError,
+              handle: benchHomeHandle,
+            },
+            {
+              path: paths.benches.members.path,
+              loader: benchMembersLoader(queryClient),
+              Component: BenchMembersRoute,
+              ErrorBoundary: RouteError,
+            },
+            { path: paths.account.path, loader: accountLoader(queryClient), Component: AccountRoute, ErrorBoundary: RouteError },
+          ],
+        },
+        { path: '*', Component: NotFoundRoute },
+      ],
+    },
+  ]);
+}
+
+export type AppRouter = ReturnType<typeof createAppRouter>;

@@ -1,0 +1,96 @@
+/** /benches/:benchId/members — who is on the bench, with their roles; owners add and change. */
+import { useQueryClient, type QueryClient } from '@tanstack/react-query';
+import { useNavigate, useParams, type LoaderFunctionArgs } from 'react-router';
+import { PageHeader } from '../../components/layout/page-header';
+import { Mono } from '../../components/ui/quantity';
+import { ROLE_DESCRIPTIONS, RoleTag } from '../../components/ui/role-tag';
+import { Panel, Section } from '../../components/ui/section';
+import { paths } from '../../config/paths';
+import { BenchRole } from '../../../server/contracts/benches';
+import { useSignedInUser } from '../../features/auth/api/get-me';
+import { benchQueryOptions, useBench } from '../../features/benches/api/get-bench';
+import { benchKeys } from '../../features/benches/api/keys';
+import { membersQueryOptions, useMembers } from '../../features/members/api/get-members';
+import { AddMemberForm } from '../../features/members/components/add-member-form';
+import { MemberList } from '../../features/members/components/member-list';
+
+export const benchMembersLoader =
+  (queryClient: QueryClient) =>
+  async ({ params }: LoaderFunctionArgs) => {
+    const benchId = params.benchId ?? '';
+    await Promise.all([
+      queryClient.ensureQueryData(benchQueryOptions(benchId)),
+      queryClient.ensureQueryData(membersQueryOptions(benchId)),
+    ]);
+    return null;
+  };
+
+export function BenchMembersRoute() {
+  const benchId = useParams().benchId ?? '';
+  const bench = useBench(benchId);
+  const members = useMembers(benchId);
+  const user = useSignedInUser();
+  const queryClient = useQueryClient();
+  const navigate = useNavigate();
+  const isOwner = bench.role === 'owner';
+  const refreshBench = () => void queryClient.invalidateQueries({ queryKey: benchKeys.all });
+
+  return (
+    <>
+      <title>{`Members of ${bench.name} · Phaseloom`}</title>
+      <PageHeader
+        trail={[
+          { label: 'Benches', to: paths.benches.list.getHref() },
+          { label: bench.name, to: paths.benches.home.getHref(bench.id) },
+          { label: 'Members' },
+        ]}
+        title="Members"
+        lede={`Who can see and change “${bench.name}”.`}
+      />
+      <div className="mt-10 grid grid-cols-[minmax(0,1fr)_20rem] gap-14">
+        <Section
+          id="members"
+          title="People on this bench"
+          aside={
+            <span className="text-sm text-ink-faint">
+              <Mono>{members.length}</Mono> {members.length === 1 ? 'member' : 'members'}
+            </span>
+          }
+        >
+          <MemberList
+            benchId={bench.id}
+            benchName={bench.name}
+            members={members}
+            currentUserId={user.id}
+            canManage={isOwner}
+            onChanged={refreshBench}
+            onLeft={() => navigate(paths.benches.list.getHref(), { replace: true })}
+          />
+        </Section>
+        <aside className="flex flex-col gap-8">
+          {isOwner && (
+            <Panel id="add-member" title="Add a member">
+              <AddMemberForm benchId={bench.id} onChanged={refreshBench} />
+            </Panel>
+          )}
+          <section aria-labelledby="roles-heading" className="px-1">
+            <h2 id="roles-heading" className="text-sm font-semibold text-ink">
+              Roles
+            </h2>
+            <dl className="mt-3 flex flex-col gap-3">
+              {BenchRole.options.map((r) => (
+                <div key={r}>
+                  <dt>
+                    <RoleTag role={r} />
+                  </dt>
+                  <dd className="mt-1 text-sm leading-relaxed text-ink-soft">{ROLE_DESCRIPTIONS[r]}</dd>
+                </div>
+              ))}
+            </dl>
+            {!isOwner && <p className="mt-4 text-sm text-ink-faint">Only owners add members or change roles.</p>}
+          </section>
+        </aside>
+      </div>
+    </>
+  );
+}

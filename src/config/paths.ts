@@ -1,0 +1,59 @@
+/**
+ * Every URL the client uses: the pages (with their router patterns) and the API endpoints.
+ * Nothing else in src/ writes a URL by hand.
+ */
+import { env } from './env';
+
+const seg = (value: string) => encodeURIComponent(value);
+
+/**
+ * A redirect target is only honoured when it is a path on this site ("/benches/…"), never
+ * another origin ("//host", "https://…") — otherwise sign-in would be an open redirect.
+ */
+export function safeRedirectTarget(value: string | null | undefined, fallback = '/benches'): string {
+  if (!value || !value.startsWith('/') || value.startsWith('//') || value.startsWith('/\\')) return fallback;
+  if (value.startsWith('/sign-in') || value.startsWith('/sign-up')) return fallback;
+  return value;
+}
+
+function withRedirect(base: string, redirectTo?: string | null): string {
+  if (!redirectTo) return base;
+  const target = safeRedirectTarget(redirectTo, '');
+  return target ? `${base}?redirectTo=${encodeURIComponent(target)}` : base;
+}
+
+export const paths = {
+  home: { path: '/', getHref: () => '/' },
+  auth: {
+    signIn: { path: '/sign-in', getHref: (redirectTo?: string | null) => withRedirect('/sign-in', redirectTo) },
+    signUp: { path: '/sign-up', getHref: (redirectTo?: string | null) => withRedirect('/sign-up', redirectTo) },
+  },
+  benches: {
+    list: { path: '/benches', getHref: () => '/benches' },
+    home: { path: '/benches/:benchId', getHref: (benchId: string) => `/benches/${seg(benchId)}` },
+    members: {
+      path: '/benches/:benchId/members',
+      getHref: (benchId: string) => `/benches/${seg(benchId)}/members`,
+    },
+  },
+  account: { path: '/account', getHref: () => '/account' },
+} as const;
+
+const api = env.apiBase;
+
+export const apiPaths = {
+  auth: {
+    signUp: () => `${api}/auth/sign-up`,
+    signIn: () => `${api}/auth/sign-in`,
+    signOut: () => `${api}/auth/sign-out`,
+  },
+  me: () => `${api}/me`,
+  benches: {
+    list: () => `${api}/benches`,
+    detail: (benchId: string) => `${api}/benches/${seg(benchId)}`,
+    members: (benchId: string) => `${api}/benches/${seg(benchId)}/members`,
+    member: (benchId: string, userId: string) => `${api}/benches/${seg(benchId)}/members/${seg(userId)}`,
+    lasers: (benchId: string) => `${api}/benches/${seg(benchId)}/lasers`,
+    laser: (benchId: string, laserId: string) => `${api}/benches/${seg(benchId)}/lasers/${seg(laserId)}`,
+  },
+} as const;

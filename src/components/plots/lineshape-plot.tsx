@@ -41,8 +41,10 @@ export function LineshapePlot({ offsetHz, power, fwhmHz, width = 300, height = 1
     );
   }, [offsetHz, power, n, x, y]);
 
-  const ticks = linearTicks([-span, span], 4, (v) => formatSI(v, 'Hz', { significant: 2, trim: true }).number);
-  const tickUnit = formatSI(span, 'Hz').unit;
+  // one SI prefix for the whole axis (that of the span), named in the axis title
+  const exp3 = span > 0 ? Math.floor(Math.log10(span) / 3) * 3 : 0;
+  const tickUnit = formatSI(10 ** exp3, 'Hz').unit;
+  const ticks = linearTicks([-span, span], 4, (v) => String(Number((v / 10 ** exp3).toPrecision(3))).replace('-', '\u2212'));
 
   return (
     <svg width={width} height={height} viewBox={`0 0 ${width} ${height}`} role="img" aria-label={label} fontFamily={T.sans} className="block">

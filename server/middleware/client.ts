@@ -5,7 +5,8 @@
  */
 import { existsSync } from 'node:fs';
 import path from 'node:path';
-import express, { Router } from 'express';
+import express, { Router, type NextFunction, type Request, type Response } from 'express';
+import { notFound } from '../errors';
 
 export function clientRoutes(clientDir: string): Router {
   const router = Router();
@@ -21,7 +22,8 @@ export function clientRoutes(clientDir: string): Router {
   }
   router.use(
     '/assets',
-    express.static(path.join(clientDir, 'assets'), { immutable: true, maxAge: '365d', index: false, fallthrough: false }),
+    express.static(path.join(clientDir, 'assets'), { immutable: true, maxAge: '365d', index: false }),
+    (req: Request, _res: Response, next: NextFunction) => next(notFound(`no asset ${req.originalUrl.split('?')[0]}`)),
   );
   router.use(express.static(clientDir, { index: false, maxAge: 0 }));
   router.get('/{*path}', (_req, res) => {

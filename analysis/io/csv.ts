@@ -10,8 +10,10 @@
  * without a unit such as "time (s)"), or, without a header, when there are three columns, or two
  * columns whose first one is evenly spaced over the first rows.
  * Sample rate: from the time column, fs = (K−1)/(t[K−1] − t[0]) over the first K ≤ 4096 rows; every
- * step must match 1/fs within 1e-6 relative, beyond the rounding of the printed digits (each cell is
- * taken as exact to half a unit of its last digit) — otherwise an error names the row.
+ * step must match 1/fs within 1e-6 relative, beyond the rounding of the printed digits — otherwise an
+ * error names the row. The printing resolution is half a unit of the finest last digit written in the
+ * first K time cells ("0.000333" -> 5e-7; plain integers count as exact), so times printed with a
+ * fixed number of decimals pass, and exactly printed times are held to 1e-6.
  * Rows are numbered from 1 at the top of the file, header, blank and comment lines included.
  * Errors name the row (and column): a non-numeric cell, NaN or Inf, an empty cell, a row with a
  * different number of cells, uneven time steps, a line over 1 MiB, no data rows.
@@ -45,6 +47,8 @@ const POW10_HALF: number[] = [];
 for (let k = -340; k <= 308; k++) POW10_HALF[k + 340] = 0.5 * Math.pow(10, k);
 /** half a unit of the last printed digit, 10^k / 2 */
 const halfUnit = (k: number): number => POW10_HALF[Math.max(-340, Math.min(308, k)) + 340];
+/** lastDigitExponent stored for a plain integer cell: exact */
+const EXACT = -1000;
 
 const TIME_NAMES = new Set(['t', 'time', 'times', 'timestamp', 'seconds', 'second', 'sec', 's', 'time_s', 't_s', 'time s', 'time(s)', 'time[s]']);
 
@@ -86,10 +90,11 @@ export class CsvReader implements StreamingReader {
   // time checks
   private dt = 0;
   private prevTime = 0;
-  private prevDigits = 0;
   private firstTime = 0;
   // per-row scratch
-  private readonly cell: DecimalResult = { status: DECIMAL_OK, value: 0, lastDigitExponent: 0 };
+  /** allowed |step − dt| beyond 4 ulps of t: 1e-6·dt plus the printing resolution of two cells */
+  private stepTolerance = 0;
+  private readonly cell: DecimalResult = { status: DECIMAL_OK, value: 0, lastDigitExponent: 0, plainInteger: false };
   private rowValues = new Float64Array(4);
   private rowDigits = new Int32Array(4);
   // output of the current push
@@ -177,6 +182,10 @@ export class CsvReader implements StreamingReader {
       this.firstLine(buf, s, e);
       return;
     }
+    if (this.dataRows === 0 && this.delimiter !== COMMA) {
+      // decimal comma only where the comma is not the separator and the first data row uses it
+      for (let i = s; i < e; i++) if (buf[i] === COMMA) this.decimalComma = true;
+    }
     const n = this.parseRow(buf, s, e);
     if (n !== this.columnCount) {
       throw new AnalysisInputError(`the row has ${n} cells, the first row had ${this.columnCount}`, `row ${this.line}`);
@@ -191,7 +200,7 @@ export class CsvReader implements StreamingReader {
       if (this.probeValues.length >= CSV_PROBE_ROWS) this.finishProbe();
       return;
     }
-    this.acceptRow(this.rowValues, this.rowDigits[0], this.line);
+    this.acceptRow(this.rowValues, this.line);
   }
 
   /** The first non-comment line: choose the separator, then header or data. */
@@ -236,10 +245,6 @@ export class CsvReader implements StreamingReader {
       );
     }
     if (!header) {
-      // decimal comma only where the comma is not the separator and the first data row uses it
-      if (this.delimiter !== COMMA) {
-        for (let i = s; i < e; i++) if (buf[i] === COMMA) this.decimalComma = true;
-      }
       this.line--; // parse it again as a data row
       this.processLine(buf, s, e);
     }
@@ -304,7 +309,7 @@ export class CsvReader implements StreamingReader {
         throw new AnalysisInputError(`non-numeric cell '${text}'`, `row ${this.line}, column ${column}`);
       }
       this.rowValues[count] = this.cell.value;
-      this.rowDigits[count] = this.cell.lastDigitExponent;
+      this.rowDigits[count] = this.cell.plainInteger ? EXACT : this.cell.lastDigitExponent;
       count++;
       if (d !== 0 && ce === e) break;
     }
@@ -321,10 +326,7 @@ export class CsvReader implements StreamingReader {
       // two columns, no header: time + value when the first column is evenly spaced, else I, Q
       this.timeColumn = k >= 3 && this.evenlySpaced(rows, false);
     }
-    if (this.timeColumn && k >= 2) {
-      this.evenlySpaced(rows, true);
-      this.dt = (rows[k - 1][0] - rows[0][0]) / (k - 1);
-    }
+    if (this.timeColumn && k >= 2) this.evenlySpaced(rows, true);
     const dataColumns = this.columnCount - (this.timeColumn ? 1 : 0);
     const first = this.timeColumn ? 1 : 0;
     const details: Record<string, string | number | boolean> = {
@@ -345,41 +347,43 @@ export class CsvReader implements StreamingReader {
       sampleRateHz: this.timeColumn && k >= 2 ? 1 / this.dt : undefined,
       details,
     };
-    if (this.timeColumn && k >= 2 && !(this.dt > 0)) {
-      throw new AnalysisInputError('the time column does not increase', `row ${this.probeLines[1]}`);
-    }
     const values = this.rowValues;
     for (let r = 0; r < k; r++) {
       const row = rows[r];
       for (let c = 0; c < row.length; c++) values[c] = row[c];
-      this.acceptRow(values, this.probeDigits[r], this.probeLines[r], r === 0);
+      this.acceptRow(values, this.probeLines[r], r === 0);
     }
     this.probeValues = [];
     this.probeDigits = [];
     this.probeLines = [];
   }
 
-  /** Are the probe's first-column steps all positive and equal within tolerance? Throws when `strict`. */
+  /**
+   * Are the probe's first-column steps all positive and equal within tolerance? Sets dt and the
+   * step tolerance; throws (naming the row) when `strict`.
+   */
   private evenlySpaced(rows: number[][], strict: boolean): boolean {
     const k = rows.length;
     const dt = (rows[k - 1][0] - rows[0][0]) / (k - 1);
+    let finest = Infinity;
+    for (let r = 0; r < k; r++) if (this.probeDigits[r] !== EXACT) finest = Math.min(finest, this.probeDigits[r]);
+    // 1e-6 relative, plus half a unit of the finest printed digit for each of the two cells
+    const tolerance = CSV_TIME_JITTER * dt + (finest === Infinity ? 0 : 2 * halfUnit(finest));
     for (let r = 1; r < k; r++) {
-      const step = rows[r][0] - rows[r - 1][0];
-      const tol = this.timeTolerance(dt, rows[r][0], this.probeDigits[r], this.probeDigits[r - 1]);
-      if (!(step > 0) || Math.abs(step - dt) > tol) {
+      const t = rows[r][0];
+      const step = t - rows[r - 1][0];
+      if (!(step > 0) || Math.abs(step - dt) > tolerance + 4 * Number.EPSILON * Math.abs(t)) {
         if (strict) this.unevenStep(step, dt, this.probeLines[r]);
         return false;
       }
     }
+    this.dt = dt;
+    this.stepTolerance = tolerance;
     return true;
   }
 
-  private timeTolerance(dt: number, t: number, digits: number, prevDigits: number): number {
-    // 1e-6 relative, plus the rounding of both printed times, plus a few ulps of t
-    return CSV_TIME_JITTER * dt + halfUnit(digits) + halfUnit(prevDigits) + 4 * Number.EPSILON * Math.abs(t);
-  }
-
   private unevenStep(step: number, dt: number, line: number): never {
+    if (!(step > 0)) throw new AnalysisInputError(`the time column does not increase (step ${step} s)`, `row ${line}`);
     throw new AnalysisInputError(
       `the time column is not evenly spaced: the step to this row is ${step} s, expected ${dt} s ` +
         `(more than ${CSV_TIME_JITTER} relative jitter)`,
@@ -387,19 +391,18 @@ export class CsvReader implements StreamingReader {
     );
   }
 
-  private acceptRow(values: Float64Array, timeDigits: number, line: number, first = this.frames === 0): void {
+  private acceptRow(values: Float64Array, line: number, first = this.frames === 0): void {
     let c = 0;
     if (this.timeColumn) {
       const t = values[0];
       if (first) this.firstTime = t;
       else if (this.dt > 0) {
         const step = t - this.prevTime;
-        if (Math.abs(step - this.dt) > this.timeTolerance(this.dt, t, timeDigits, this.prevDigits)) {
+        if (!(Math.abs(step - this.dt) <= this.stepTolerance + 4 * Number.EPSILON * Math.abs(t))) {
           this.unevenStep(step, this.dt, line);
         }
       }
       this.prevTime = t;
-      this.prevDigits = timeDigits;
       c = 1;
     }
     if (this.outLength === this.outA.length) {

@@ -20,6 +20,8 @@ export interface DecimalResult {
   value: number;
   /** the power of ten of the last written digit (resolution of the text): "0.0012" -> -4 */
   lastDigitExponent: number;
+  /** written as a plain integer (no decimal point, no exponent): "4999" */
+  plainInteger: boolean;
 }
 
 const POW10 = [1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15, 1e16, 1e17, 1e18, 1e19, 1e20, 1e21, 1e22];
@@ -36,6 +38,7 @@ export function parseDecimal(buf: Uint8Array, s: number, e: number, decimalComma
   out.status = DECIMAL_NOT_A_NUMBER;
   out.value = NaN;
   out.lastDigitExponent = 0;
+  out.plainInteger = false;
   let i = s;
   let negative = false;
   if (i < e && (buf[i] === 0x2b || buf[i] === 0x2d)) {
@@ -47,6 +50,7 @@ export function parseDecimal(buf: Uint8Array, s: number, e: number, decimalComma
   let exact = true;
   let digits = 0;
   let fractionDigits = 0;
+  let hasPoint = false;
   while (i < e) {
     const d = buf[i] - 0x30;
     if (d < 0 || d > 9) break;
@@ -58,6 +62,7 @@ export function parseDecimal(buf: Uint8Array, s: number, e: number, decimalComma
     i++;
   }
   if (i < e && buf[i] === point) {
+    hasPoint = true;
     i++;
     while (i < e) {
       const d = buf[i] - 0x30;
@@ -80,7 +85,9 @@ export function parseDecimal(buf: Uint8Array, s: number, e: number, decimalComma
     return;
   }
   let exponent = 0;
+  let hasExponent = false;
   if (i < e && (buf[i] | 0x20) === 0x65) {
+    hasExponent = true;
     i++;
     let expNegative = false;
     if (i < e && (buf[i] === 0x2b || buf[i] === 0x2d)) {
@@ -100,6 +107,7 @@ export function parseDecimal(buf: Uint8Array, s: number, e: number, decimalComma
   }
   if (i !== e) return;
   out.lastDigitExponent = exponent - fractionDigits;
+  out.plainInteger = !hasPoint && !hasExponent;
   let value: number;
   const scale = exponent - fractionDigits;
   if (exact && scale >= -22 && scale <= 22) {

@@ -21,7 +21,7 @@
  *  3. Carrier floor: Γ(∞) = exp(−∫_{1/T0}^∞ S_ν/f² df). When Γ(∞) > 1e-3 the line is a coherent
  *     carrier plus a pedestal and has no meaningful FWHM: fwhmHz = null, carrierDominated = true.
  *     Otherwise Γ(∞) (the δ at ν = 0) is subtracted before the transform.
- *  4. τ grid chosen adaptively: τ½ where Γ = ½ by bracketing + Brent; step τ½/20; extended until
+ *  4. τ grid chosen adaptively: τ½ where Γ = ½ by bracketing + Brent; step τ½/12; extended until
  *     Γ − Γ(∞) < 1e-10 (at most 4000 steps). S_E by Simpson's rule on that grid.
  *  5. FWHM = 2ν½ where S_E(ν½) = S_E(0)/2: first downward crossing by stepping ν, then Brent.
  * Cost: (grid points) × (τ points) evaluations of Si/Ci — about 0.1–0.3 s for 2000 points.
@@ -63,7 +63,7 @@ interface ResolvedLineshapeOptions {
 const CARRIER_FLOOR_LIMIT = 1e-3;
 /** Γ − Γ(∞) level at which the τ grid stops. */
 const GAMMA_END = 1e-10;
-const TAU_STEPS_PER_HALF = 20;
+const TAU_STEPS_PER_HALF = 12;
 const MAX_TAU_POINTS = 4001;
 /** largest ratio f_{i+1}/f_i kept as one linear piece (power-law segments are subdivided below it) */
 const MAX_SEGMENT_RATIO = 1.025;
@@ -245,7 +245,7 @@ export function lineshape(spectrum: Spectrum, options: LineshapeOptions): Linesh
   }
   const tauHalf = brentRoot(excess, lo, hi, 1e-9 * hi);
 
-  // Γ(τ) − Γ(∞) on a uniform grid, step τ½/20, until below 1e-10 (even number of intervals for Simpson).
+  // Γ(τ) − Γ(∞) on a uniform grid, step τ½/12, until below 1e-10 (even number of intervals for Simpson).
   const step = tauHalf / TAU_STEPS_PER_HALF;
   const gamma: number[] = [1 - carrierFraction];
   let reachedEnd = false;

@@ -11,7 +11,8 @@
  *   Cin(x) = ∫₀ˣ (1 − cos t) / t dt = γ + ln x − Ci(x)   (5.2.2)
  *   g(x)   = Si(x) − (1 − cos x)/x: x·g(x)/... is the antiderivative used by the lineshape, since
  *            ∫ sin²(a f)/f² df = a·g(2 a f) and ∫ sin²(a f)/f df = Cin(2 a f)/2 (+ constants).
- * Method: power series (5.2.14, 5.2.16) for x <= 6; for x > 6 the continued fraction of E₁(ix)
+ * Method: power series (5.2.14, 5.2.16) for x <= 6; the asymptotic expansions of the auxiliary
+ * functions f, g (5.2.34, 5.2.35) for x >= 64; in between the continued fraction of E₁(ix)
  * (A&S 5.1.22, evaluated by the modified Lentz method as in Press et al., "Numerical Recipes",
  * 3rd ed. (2007), §6.8), with Ci(x) = −Re E₁(ix), Si(x) = π/2 + Im E₁(ix).
  * Worked check: Si(1) = 0.946083070367183, Ci(1) = 0.337403922900968 (A&S Table 5.1).
@@ -19,6 +20,7 @@
 
 const EULER_GAMMA = 0.5772156649015329;
 const SERIES_LIMIT = 6;
+const ASYMPTOTIC_LIMIT = 64;
 const EPS = 1e-16;
 
 export interface SineCosineIntegrals {
@@ -56,6 +58,21 @@ export function sineCosineIntegrals(x: number, out: SineCosineIntegrals): SineCo
     out.cin = cin;
     // 1 − cos x = 2 sin²(x/2), no cancellation for small x
     out.g = si - (2 * half * half) / x;
+    return out;
+  }
+  if (x >= ASYMPTOTIC_LIMIT) {
+    // auxiliary functions (A&S 5.2.8–5.2.9, asymptotic 5.2.34–5.2.35):
+    // f(x) ~ (1/x)(1 − 2!/x² + 4!/x⁴ − …), g(x) ~ (1/x²)(1 − 3!/x² + 5!/x⁴ − …);
+    // Si = π/2 − f cos x − g sin x, Ci = f sin x − g cos x. Truncation error ~ 12!/x¹² < 1e-13 relative.
+    const y = 1 / (x * x);
+    const fAux = (1 - y * (2 - y * (24 - y * (720 - y * (40320 - y * 3628800))))) / x;
+    const gAux = y * (1 - y * (6 - y * (120 - y * (5040 - y * (362880 - y * 39916800)))));
+    const cs = Math.cos(x);
+    const sn = Math.sin(x);
+    const si = Math.PI / 2 - fAux * cs - gAux * sn;
+    out.si = si;
+    out.cin = EULER_GAMMA + Math.log(x) - (fAux * sn - gAux * cs);
+    out.g = si - (1 - cs) / x;
     return out;
   }
   // E₁(ix) by the continued fraction, modified Lentz (b = 1 + ix, ...)

@@ -47,6 +47,12 @@ export function createAuthService(db: Knex) {
 
     createAccount,
 
+    /** The account with this (lower-cased) e-mail, or null. */
+    async findUserByEmail(email: string): Promise<User | null> {
+      const row = await findUserByEmail(db, email.trim().toLowerCase());
+      return row ? toUser(row) : null;
+    },
+
     async signUp(input: SignUpInput): Promise<{ user: User; session: Session }> {
       const user = await createAccount(input);
       const session = await lucia.createSession(user.id, {});

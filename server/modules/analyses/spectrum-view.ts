@@ -1,0 +1,43 @@
+/**
+ * GET /spectrum: the stored S_ν series in one of four views, log-binned to at most N points, with the
+ * engine's own helpers — geometric bins holding the mean of the linear S_ν (analysis/spectrum/
+ * log-binning.ts), then the view of the binned spectrum (analysis/spectrum/views.ts):
+ * S_φ = S_ν/f², L(f) = 10·log10(S_φ/2) dBc/Hz (IEEE Std 1139-2008), √S_ν.
+ */
+import { logBinSpectrum } from '../../../analysis/spectrum/log-binning';
+import { spectrumView, type SpectrumViewName } from '../../../analysis/spectrum/views';
+import { SPECTRUM_UNITS, type SpectrumResponse, type SpectrumView } from '../../contracts/analyses';
+import type { Series } from '../../jobs/series-file';
+
+const ENGINE_VIEW: Record<SpectrumView, SpectrumViewName> = {
+  frequency: 'frequency-noise',
+  phase: 'phase-noise',
+  dbc: 'ssb-phase-noise',
+  asd: 'frequency-noise-asd',
+};
+
+const finiteOrNull = (v: number): number => (Number.isFinite(v) ? v : (null as unknown as number));
+
+export function spectrumResponse(series: Series, view: SpectrumView, points: number): SpectrumResponse {
+  // log bins from the lowest to the highest frequency: ⌊ppd·decades⌋ + 1 bins, so ask for one fewer
+  // than N to return at most N points.
+  const binned =
+    series.frequencyHz.length <= points
+      ? positiveFrequencies(series)
+      : logBinSpectrum({ frequencyHz: series.frequencyHz, psd: series.psd }, { points: Math.max(1, points - 1) });
+  const v = spectrumView({ frequencyHz: binned.frequencyHz, psd: binned.psd }, ENGINE_VIEW[view]);
+  // dB of a zero S_ν is −Infinity: JSON has no such number, so it travels as null
+  const values = Array.from(v.values, finiteOrNull);
+  const frequencyHz = Array.from(v.frequencyHz);
+  return { view, unit: SPECTRUM_UNITS[view], frequencyHz, values, points: frequencyHz.length };
+}
+
+/** The series without f ≤ 0 (a log axis has no place for DC), as log binning leaves it too. */
+function positiveFrequencies(series: Series): Series {
+  const keep: number[] = [];
+  for (let i = 0; i < series.frequencyHz.length; i++) if (series.frequencyHz[i] > 0) keep.push(i);
+  return {
+    frequencyHz: Float64Array.from(keep, (i) => series.frequencyHz[i]),
+    psd: Float64Array.from(keep, (i) => series.psd[i]),
+  };
+}

@@ -31,6 +31,7 @@ export default async function setup(): Promise<void> {
     throw new Error(
       `cannot reach the test MariaDB on ${env.PHASELOOM_DB_HOST}:${env.PHASELOOM_DB_PORT} (${(e as Error).message}); ` +
         'start it with PHASELOOM_DB_PORT=3309 PHASELOOM_DB_DATADIR=.data/mariadb-test PHASELOOM_DB_NAME=phaseloom_test npm run db:up',
+      { cause: e },
     );
   } finally {
     await server.destroy();

@@ -41,6 +41,21 @@ export const paths = {
 
 const api = env.apiBase;
 
+/**
+ * "?a=1&b=x" from an object's defined, non-empty values (in the object's key order); "" when none.
+ * Takes any object so feature filter interfaces pass as they are.
+ */
+export function queryString(query?: object): string {
+  if (!query) return '';
+  const params = new URLSearchParams();
+  for (const [key, value] of Object.entries(query)) {
+    if (value === undefined || value === null || value === '') continue;
+    params.set(key, String(value));
+  }
+  const text = params.toString();
+  return text ? `?${text}` : '';
+}
+
 export const apiPaths = {
   auth: {
     signUp: () => `${api}/auth/sign-up`,
@@ -55,5 +70,20 @@ export const apiPaths = {
     member: (benchId: string, userId: string) => `${api}/benches/${seg(benchId)}/members/${seg(userId)}`,
     lasers: (benchId: string) => `${api}/benches/${seg(benchId)}/lasers`,
     laser: (benchId: string, laserId: string) => `${api}/benches/${seg(benchId)}/lasers/${seg(laserId)}`,
+    /** GET with ?laserId=&kind=&tag=&page=&pageSize=; POST multipart to upload */
+    captures: (benchId: string, query?: object) => `${api}/benches/${seg(benchId)}/captures${queryString(query)}`,
+    laserSpectra: (benchId: string, laserId: string) =>
+      `${api}/benches/${seg(benchId)}/lasers/${seg(laserId)}/spectra`,
+  },
+  captures: {
+    detail: (captureId: string) => `${api}/captures/${seg(captureId)}`,
+    analyses: (captureId: string) => `${api}/captures/${seg(captureId)}/analyses`,
+  },
+  analyses: {
+    detail: (analysisId: string) => `${api}/analyses/${seg(analysisId)}`,
+    /** GET with ?view=&points= */
+    spectrum: (analysisId: string, query?: object) => `${api}/analyses/${seg(analysisId)}/spectrum${queryString(query)}`,
+    seriesCsv: (analysisId: string) => `${api}/analyses/${seg(analysisId)}/series.csv`,
+    retry: (analysisId: string) => `${api}/analyses/${seg(analysisId)}/retry`,
   },
 } as const;

@@ -15,6 +15,13 @@ describe('paths', () => {
     expect(paths.auth.signIn.getHref()).toBe('/sign-in');
   });
 
+  it('apiPaths.benches.captures(id, filters) leaves out empty filters', () => {
+    expect(apiPaths.benches.captures('b', { laserId: 'l', kind: undefined, tag: '', page: 2, pageSize: 25 })).toBe(
+      '/api/benches/b/captures?laserId=l&page=2&pageSize=25',
+    );
+    expect(apiPaths.analyses.spectrum('a')).toBe('/api/analyses/a/spectrum');
+  });
+
   it('apiPaths encode ids into one path segment', () => {
     expect(apiPaths.benches.laser('a/b', 'c')).toBe('/api/benches/a%2Fb/lasers/c');
     expect(apiPaths.me()).toBe('/api/me');

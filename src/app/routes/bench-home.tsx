@@ -2,6 +2,7 @@
 import { useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { useNavigate, useParams, type LoaderFunctionArgs } from 'react-router';
 import { PageHeader } from '../../components/layout/page-header';
+import { WorkArea } from '../../components/layout/work-area';
 import { ButtonLink } from '../../components/ui/button';
 import { EmptyNote } from '../../components/ui/notes';
 import { Mono } from '../../components/ui/quantity';
@@ -62,7 +63,9 @@ export function BenchHomeRoute() {
         actions={<ButtonLink to={paths.benches.members.getHref(bench.id)}>Members</ButtonLink>}
       />
 
-      <div className="mt-10 grid grid-cols-[minmax(0,1fr)_20rem] gap-14">
+      <WorkArea
+        className="mt-10"
+        main={
         <Section
           id="lasers"
           title="Lasers"
@@ -83,8 +86,9 @@ export function BenchHomeRoute() {
             <LaserList benchId={bench.id} lasers={lasers} canWrite={canWrite} onChanged={refreshCounts} />
           )}
         </Section>
-        <aside>
-          {canWrite ? (
+        }
+        side={
+          canWrite ? (
             <Panel id="add-laser" title="Add a laser">
               <LaserForm benchId={bench.id} onChanged={refreshCounts} />
             </Panel>
@@ -94,12 +98,12 @@ export function BenchHomeRoute() {
                 As a viewer you read everything here. Analysts and owners add and edit lasers.
               </p>
             </Panel>
-          )}
-        </aside>
-      </div>
+          )
+        }
+      />
 
       {isOwner && (
-        <div className="mt-16 grid grid-cols-[minmax(0,1fr)_20rem] gap-14">
+        <div className="mt-16 grid grid-cols-[minmax(0,1fr)_20rem] gap-14 border-t border-rule pt-10">
           <Section id="bench-record" title="Bench record" lede="Only owners see this part.">
             <div className="max-w-[34rem]">
               <BenchRecordForm bench={bench} onSaved={refreshCounts} />

@@ -2,6 +2,7 @@
 import { useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { useNavigate, useParams, type LoaderFunctionArgs } from 'react-router';
 import { PageHeader } from '../../components/layout/page-header';
+import { WorkArea } from '../../components/layout/work-area';
 import { Mono } from '../../components/ui/quantity';
 import { ROLE_DESCRIPTIONS, RoleTag } from '../../components/ui/role-tag';
 import { Panel, Section } from '../../components/ui/section';
@@ -47,7 +48,9 @@ export function BenchMembersRoute() {
         title="Members"
         lede={`Who can see and change “${bench.name}”.`}
       />
-      <div className="mt-10 grid grid-cols-[minmax(0,1fr)_20rem] gap-14">
+      <WorkArea
+        className="mt-10"
+        main={
         <Section
           id="members"
           title="People on this bench"
@@ -67,7 +70,9 @@ export function BenchMembersRoute() {
             onLeft={() => navigate(paths.benches.list.getHref(), { replace: true })}
           />
         </Section>
-        <aside className="flex flex-col gap-8">
+        }
+        side={
+          <>
           {isOwner && (
             <Panel id="add-member" title="Add a member">
               <AddMemberForm benchId={bench.id} onChanged={refreshBench} />
@@ -77,7 +82,7 @@ export function BenchMembersRoute() {
             <h2 id="roles-heading" className="text-sm font-semibold text-ink">
               Roles
             </h2>
-            <dl className="mt-3 flex flex-col gap-3">
+            <dl className="mt-3 grid grid-cols-3 gap-6 xl:grid-cols-1 xl:gap-3">
               {BenchRole.options.map((r) => (
                 <div key={r}>
                   <dt>
@@ -89,8 +94,9 @@ export function BenchMembersRoute() {
             </dl>
             {!isOwner && <p className="mt-4 text-sm text-ink-faint">Only owners add members or change roles.</p>}
           </section>
-        </aside>
-      </div>
+          </>
+        }
+      />
     </>
   );
 }

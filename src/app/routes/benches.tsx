@@ -2,6 +2,7 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { useNavigate } from 'react-router';
 import { PageHeader } from '../../components/layout/page-header';
+import { WorkArea } from '../../components/layout/work-area';
 import { EmptyNote } from '../../components/ui/notes';
 import { Mono } from '../../components/ui/quantity';
 import { Panel, Section } from '../../components/ui/section';
@@ -25,7 +26,10 @@ export function BenchesRoute() {
         title="Benches"
         lede="A bench keeps one team's lasers, captures and spectra together. Everyone on it has a role: owners manage members, analysts change things, viewers read."
       />
-      <div className="mt-10 grid grid-cols-[minmax(0,1fr)_20rem] gap-14">
+      <WorkArea
+        className="mt-10"
+        sideBy="always"
+        main={
         <Section
           id="bench-list"
           title="Your benches"
@@ -44,12 +48,13 @@ export function BenchesRoute() {
             <BenchList benches={benches} hrefFor={paths.benches.home.getHref} />
           )}
         </Section>
-        <aside>
+        }
+        side={
           <Panel id="start-bench" title="Start a bench">
             <CreateBenchForm onCreated={(bench) => navigate(paths.benches.home.getHref(bench.id))} />
           </Panel>
-        </aside>
-      </div>
+        }
+      />
     </>
   );
 }

@@ -74,16 +74,18 @@ export function SiteChrome({ homeHref, nav, account, showLaserSafety, children }
 /** The frame of the sign-in and sign-up pages: one calm column on the paper. */
 export function EntryChrome({ children, aside }: { children: ReactNode; aside?: ReactNode }) {
   return (
-    <div className="entry-paper flex min-h-screen flex-col">
+    <div className="flex min-h-screen flex-col">
       <SkipLink />
       <NavigationProgress />
-      <main id="main" tabIndex={-1} className="flex flex-1 items-start justify-center px-8 pt-[12vh] pb-16 outline-none">
-        <div className="grid w-full max-w-[56rem] grid-cols-[minmax(0,1fr)_minmax(0,24rem)] gap-20">
-          <div className="pt-2">
+      <main id="main" tabIndex={-1} className="flex flex-1 items-start justify-center px-10 pt-[11vh] pb-16 outline-none">
+        <div className="grid w-full max-w-[58rem] grid-cols-[minmax(0,1fr)_minmax(0,25rem)] gap-16">
+          <div className="pt-8">
             <Wordmark size="lg" />
             {aside}
           </div>
-          <div>{children}</div>
+          <div className="rounded-[4px] border border-rule bg-paper-card px-9 pt-8 pb-9 shadow-[0_1px_0_rgb(185_174_151/0.35)]">
+            {children}
+          </div>
         </div>
       </main>
     </div>

@@ -24,7 +24,7 @@ export interface EmptyNoteProps {
 /** An empty list, said plainly with the next step. */
 export function EmptyNote({ title, children, action, className }: EmptyNoteProps) {
   return (
-    <div className={cn('border-y border-dashed border-rule-strong px-1 py-8', className)}>
+    <div className={cn('rounded-[4px] border border-dashed border-rule-strong px-6 py-7', className)}>
       <p className="font-medium text-ink">{title}</p>
       {children && <div className="mt-1.5 max-w-prose text-sm leading-relaxed text-ink-soft">{children}</div>}
       {action && <div className="mt-4">{action}</div>}

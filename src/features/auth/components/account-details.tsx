@@ -11,9 +11,9 @@ export function AccountDetails({ user }: { user: User }) {
     ['Account since', <Mono key="d" title={formatIsoDateTime(user.createdAt)}>{formatIsoDate(user.createdAt)}</Mono>],
   ];
   return (
-    <dl className="divide-y divide-rule border-y border-rule">
+    <dl className="-mt-1 divide-y divide-rule border-b border-rule">
       {rows.map(([term, value]) => (
-        <div key={term} className="grid grid-cols-[11rem_minmax(0,1fr)] gap-6 py-3.5">
+        <div key={term} className="grid grid-cols-[11rem_minmax(0,1fr)] items-baseline gap-6 py-3.5">
           <dt className="text-sm text-ink-faint">{term}</dt>
           <dd className="text-ink">{value}</dd>
         </div>

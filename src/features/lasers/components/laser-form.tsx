@@ -26,8 +26,11 @@ export interface LaserFormProps {
   benchId: string;
   /** the laser to edit; absent to add a new one */
   laser?: Laser;
-  /** 'stacked' for a side panel, 'wide' inside a table row */
-  layout?: 'stacked' | 'wide';
+  /**
+   * 'panel' for the side column (one column from 1280 px, three below where the panel spans the
+   * page), 'wide' inside a table row (always three columns)
+   */
+  layout?: 'panel' | 'wide';
   onDone?: (laser: Laser) => void;
   onCancel?: () => void;
   /** after a change that alters the bench's counts */
@@ -38,7 +41,7 @@ function initialText(value: number | null | undefined): string {
   return value == null ? '' : String(value);
 }
 
-export function LaserForm({ benchId, laser, layout = 'stacked', onDone, onCancel, onChanged }: LaserFormProps) {
+export function LaserForm({ benchId, laser, layout = 'panel', onDone, onCancel, onChanged }: LaserFormProps) {
   const editing = laser !== undefined;
   const createLaser = useCreateLaser(benchId, { onChanged });
   const updateLaser = useUpdateLaser(benchId, { onChanged });
@@ -125,6 +128,7 @@ export function LaserForm({ benchId, laser, layout = 'stacked', onDone, onCancel
   }
 
   const wide = layout === 'wide';
+  const span = wide ? 'col-span-3' : 'col-span-3 xl:col-span-1';
   const quantityError = fieldErrors.wavelengthNm ?? fieldErrors.frequencyThz;
 
   return (
@@ -133,7 +137,10 @@ export function LaserForm({ benchId, laser, layout = 'stacked', onDone, onCancel
       noValidate
       onSubmit={onSubmit}
       aria-label={editing ? `Edit ${laser.name}` : 'Add a laser'}
-      className={cn('grid gap-5', wide ? 'grid-cols-[minmax(0,1.2fr)_minmax(0,0.8fr)_minmax(0,1.1fr)]' : 'grid-cols-1')}
+      className={cn(
+        'grid grid-cols-[minmax(0,1.2fr)_minmax(0,0.8fr)_minmax(0,1.1fr)] gap-x-6 gap-y-5',
+        !wide && 'xl:grid-cols-1',
+      )}
     >
       <TextField
         label="Name"
@@ -212,14 +219,14 @@ export function LaserForm({ benchId, laser, layout = 'stacked', onDone, onCancel
         name="notes"
         aside="optional"
         rows={wide ? 2 : 3}
+        fieldClassName={span}
         defaultValue={laser?.notes ?? ''}
         error={fieldErrors.notes}
-        fieldClassName={wide ? 'col-span-3' : undefined}
         placeholder={editing ? undefined : 'Drive current, temperature, isolator, fibre pigtail…'}
       />
 
-      <FormAlert message={formError} className={wide ? 'col-span-3' : undefined} />
-      <div className={cn('flex items-center gap-3', wide && 'col-span-3')}>
+      <FormAlert message={formError} className={span} />
+      <div className={cn('flex items-center gap-3', span)}>
         <Button type="submit" busy={mutation.isPending} busyLabel="Saving…">
           {editing ? 'Save laser' : 'Add laser'}
         </Button>

@@ -78,7 +78,7 @@ export function LaserList({ benchId, lasers, canWrite, onChanged }: LaserListPro
                     />
                   </td>
                   <td className="py-3.5 pr-4 text-right">
-                    <Mono className="text-sm text-ink-faint" title={formatIsoDateTime(laser.updatedAt)}>
+                    <Mono className="text-sm whitespace-nowrap text-ink-faint" title={formatIsoDateTime(laser.updatedAt)}>
                       {formatIsoDate(laser.updatedAt)}
                     </Mono>
                   </td>

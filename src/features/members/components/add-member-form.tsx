@@ -44,7 +44,13 @@ export function AddMemberForm({ benchId, onChanged }: { benchId: string; onChang
   }
 
   return (
-    <form ref={formRef} noValidate onSubmit={onSubmit} className="flex flex-col gap-5" aria-label="Add a member">
+    <form
+      ref={formRef}
+      noValidate
+      onSubmit={onSubmit}
+      className="grid grid-cols-2 gap-x-6 gap-y-5 xl:grid-cols-1"
+      aria-label="Add a member"
+    >
       <TextField
         label="E-mail"
         name="email"
@@ -63,8 +69,8 @@ export function AddMemberForm({ benchId, onChanged }: { benchId: string; onChang
         error={fieldErrors.role}
         hint={ROLE_DESCRIPTIONS[role]}
       />
-      <FormAlert message={formError} />
-      <div className="flex items-center gap-4">
+      <FormAlert message={formError} className="col-span-2 xl:col-span-1" />
+      <div className="col-span-2 flex items-center gap-4 xl:col-span-1">
         <Button type="submit" busy={addMember.isPending} busyLabel="Adding…">
           Add member
         </Button>

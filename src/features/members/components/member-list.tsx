@@ -88,7 +88,7 @@ function MemberRow({ benchId, benchName, member, isSelf, canManage, onChanged, o
         {isSelf && <span className="ml-2 text-xs text-ink-faint">(you)</span>}
       </td>
       <td className="py-3.5 pr-4">
-        <Mono className="text-sm text-ink-soft">{member.email}</Mono>
+        <Mono className="text-[0.8125rem] break-all text-ink-soft">{member.email}</Mono>
       </td>
       <td className="py-3 pr-4">
         {canManage ? (
@@ -131,7 +131,7 @@ function MemberRow({ benchId, benchName, member, isSelf, canManage, onChanged, o
         )}
       </td>
       <td className="py-3.5 pr-4">
-        <Mono className="text-sm text-ink-soft" title={formatIsoDateTime(member.joinedAt)}>
+        <Mono className="text-sm whitespace-nowrap text-ink-soft" title={formatIsoDateTime(member.joinedAt)}>
           {formatIsoDate(member.joinedAt)}
         </Mono>
       </td>

@@ -78,10 +78,10 @@ function resolveBetaLineOptions(spectrum: Spectrum, options: BetaLineOptions): R
   return { observationTimeS: t0, lowHz, startHz, maxHz, warnings };
 }
 
-/** ∫_u^v of the piece through (u, su), (v, sv) — power law when possible, else straight line. */
-function pieceIntegral(u: number, su: number, v: number, sv: number, a: number, b: number): number {
+/** ∫_a^b of the piece through (u, su), (v, sv) — a power law or a straight line, as its grid segment. */
+function pieceIntegral(powerLaw: boolean, u: number, su: number, v: number, sv: number, a: number, b: number): number {
   if (b <= a) return 0;
-  if (u > 0 && su > 0 && sv > 0) {
+  if (powerLaw) {
     const p = Math.log(sv / su) / Math.log(v / u);
     // ∫_a^b su (f/u)^p df = su·u/(p+1)·[(b/u)^(p+1) − (a/u)^(p+1)];  p = −1 → su·u·ln(b/a)
     if (Math.abs(p + 1) < 1e-12) return su * u * Math.log(b / a);
@@ -97,8 +97,8 @@ function pieceIntegral(u: number, su: number, v: number, sv: number, a: number, 
 }
 
 /** Where S_ν = β on the piece (du = su − βu and dv = sv − βv have opposite signs). */
-function pieceCrossing(u: number, su: number, v: number, sv: number, du: number, dv: number): number {
-  if (u > 0 && su > 0 && sv > 0) {
+function pieceCrossing(powerLaw: boolean, u: number, su: number, v: number, sv: number, du: number, dv: number): number {
+  if (powerLaw) {
     const p = Math.log(sv / su) / Math.log(v / u);
     // S/β = (su/(c u))·(f/u)^(p−1) = 1  →  f = u·(c u/su)^(1/(p−1))
     const x = u * Math.exp(Math.log((BETA_SLOPE * u) / su) / (p - 1));
@@ -146,24 +146,27 @@ export function betaLine(spectrum: Spectrum, options: BetaLineOptions): BetaLine
     const du = su - BETA_SLOPE * u; // S_ν − β at each end
     const dv = sv - BETA_SLOPE * v;
     const counts = u >= o.startHz; // the area starts exactly at 1/T0 (a node)
+    // the piece keeps the interpolation of the grid segment it lies in (power law unless a value is 0)
+    const g = firstIndexAtOrAbove(f, v) - 1;
+    const powerLaw = f[g] > 0 && s[g] > 0 && s[g + 1] > 0;
     if (du > 0 && dv > 0) {
       if (counts) {
-        area += pieceIntegral(u, su, v, sv, u, v);
+        area += pieceIntegral(powerLaw, u, su, v, sv, u, v);
         if (openAt === null) openAt = u;
       }
     } else if (du > 0 || dv > 0) {
-      const x = pieceCrossing(u, su, v, sv, du, dv);
+      const x = pieceCrossing(powerLaw, u, su, v, sv, du, dv);
       if (du > 0) {
         // leaving the region above β
         highestDownCrossing = x;
         if (counts) {
-          area += pieceIntegral(u, su, v, sv, u, x);
+          area += pieceIntegral(powerLaw, u, su, v, sv, u, x);
           intervals.push([openAt ?? u, x]);
           openAt = null;
         }
       } else if (counts) {
         // entering it
-        area += pieceIntegral(u, su, v, sv, x, v);
+        area += pieceIntegral(powerLaw, u, su, v, sv, x, v);
         openAt = x;
       }
     }

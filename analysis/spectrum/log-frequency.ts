@@ -1,35 +1,268 @@
 /**
- * Log-frequency S_ν estimate from 1/T0 to fs/2: a cascade of decimate-by-2 stages, each feeding a
- * Welch accumulator of the same segment length L, stitched onto one log-spaced grid.
+ * Log-frequency S_ν estimate from about 1/T0 to fs/2: a cascade of decimate-by-2 stages, each feeding
+ * a Welch accumulator of the same segment length L, stitched onto one log-spaced grid. Streaming,
+ * memory O(L · number of stages), ≈ 2× the work of one Welch pass.
  *
  * Usage:
  *   import { createLogFrequencyAccumulator } from '../analysis/spectrum/log-frequency';
  *   const acc = createLogFrequencyAccumulator({ sampleRateHz: 10e6, segmentLength: 4096, pointsPerDecade: 30 });
  *   acc.push(frequencyBlock); …
  *   const s = acc.result();   // LogFrequencySpectrum: frequencyHz, psd, averages, resolutionHz, stage, reliableFromHz
+ *
+ * Stage s runs at fs_s = fs/2^s (binomial low-pass + decimation by 2 between stages,
+ * analysis/spectrum/decimate-by-two.ts) and has K_s ≈ 2^{−s}·K_0 segments. Stitching rule (METHODS 1.5,
+ * "cheaper engineering alternative"): every frequency comes from the stage with the finest resolution
+ * that still has K_s ≥ minAverages and f ≥ minBin·fs_s/L. So stage 0 gives [minBin·fs/L, fs/2] with
+ * resolution fs/L and the most averages, and each deeper stage s gives [minBin, 2·minBin) bins, i.e.
+ * resolution between f/(2·minBin) and f/minBin with K_s ≈ 2·T0·f/minBin·(1 − overlap)⁻¹/2.
+ * The droop of the binomial filters, Π_j cos^{2q}(πf/r_j) over the rates r_j before each decimation,
+ * is divided out (≤ 1e-4 at the default L = 4096).
+ * Reaching 1/T0: below `reliableFromHz` (the lowest frequency meeting the rule) the deepest stage that
+ * completed at least one segment contributes its bins m ≥ 1. Its first bin is fs_S/L with
+ * L ≤ N_S < 2L + q (N_S the samples that reached it), i.e. the lowest point lies in [1/T0, ≈2/T0).
+ * Those points have few averages (often K = 1) and, for steep spectra, window leakage (METHODS 1.4):
+ * read them as indicative.
+ * Output: with pointsPerDecade > 0 the stitched bins are merged into geometric bins (mean of linear
+ * values, analysis/spectrum/log-binning.ts); `averages` is then the sum of K over the merged bins and
+ * `resolutionHz` the summed bin widths; `stage` is that of the lowest merged bin.
+ * Units: the input's unit (Hz for ν) → unit²/Hz, one-sided, as analysis/spectrum/welch.ts.
  */
 
-import type { DetrendName, LogFrequencySpectrum, WindowName } from '../types';
+import { AnalysisInputError } from '../errors';
+import type { DetrendName, LogFrequencySpectrum, WelchSpectrum, WindowName } from '../types';
+import { binomialPowerGain, createDecimatorByTwo, type DecimatorByTwo } from './decimate-by-two';
+import { resolveWelchOptions, type ResolvedWelchOptions } from './spectral-helper';
+import { createWelchAccumulator, type WelchAccumulator } from './welch';
 
 export interface LogFrequencyOptions {
   sampleRateHz: number;
-  /** L of every stage (default 4096) */
+  /** L of every stage (default 4096; at least 16·minBin) */
   segmentLength?: number;
+  /** default 'hann' */
   window?: WindowName;
+  /** default by window, as analysis/spectrum/spectral-helper.ts */
   overlap?: number;
+  /** default 'constant'; 'linear' also removes a frequency drift */
   detrend?: DetrendName;
-  /** a stage serves frequencies from bin minBin up (default 4; METHODS 1.5) */
+  /** a stage serves frequencies from bin minBin up (default 4, METHODS 1.5) */
   minBin?: number;
   /** and only when it has at least this many segments (default 2) */
   minAverages?: number;
   /** geometric output bins per decade (default 30; 0 = every stitched Welch bin) */
   pointsPerDecade?: number;
+  /** order q of the binomial anti-alias filter (default 6) */
+  decimatorOrder?: number;
+}
+
+export interface ResolvedLogFrequencyOptions {
+  welch: ResolvedWelchOptions;
+  minBin: number;
+  minAverages: number;
+  pointsPerDecade: number;
+  decimatorOrder: number;
 }
 
 export interface LogFrequencyAccumulator {
+  readonly options: ResolvedLogFrequencyOptions;
+  readonly samplesSeen: number;
+  /** stages created so far (stage s runs at fs/2^s) */
+  readonly stageCount: number;
   push(x: ArrayLike<number>): void;
   result(): LogFrequencySpectrum;
-  readonly samplesSeen: number;
 }
 
-export declare function createLogFrequencyAccumulator(options: LogFrequencyOptions): LogFrequencyAccumulator;
+/** Deepest stage: 2^40 decimation is beyond any record. */
+export const MAX_STAGES = 41;
+
+export function resolveLogFrequencyOptions(options: LogFrequencyOptions): ResolvedLogFrequencyOptions {
+  if (options === null || typeof options !== 'object') {
+    throw new AnalysisInputError('log-frequency options must be an object with at least sampleRateHz');
+  }
+  const welch = resolveWelchOptions({
+    sampleRateHz: options.sampleRateHz,
+    segmentLength: options.segmentLength,
+    window: options.window,
+    overlap: options.overlap,
+    detrend: options.detrend,
+    scaling: 'density',
+  });
+  const minBin = options.minBin ?? 4;
+  if (!Number.isInteger(minBin) || minBin < 1) {
+    throw new AnalysisInputError(`minBin must be an integer >= 1, got ${String(minBin)}`);
+  }
+  if (welch.segmentLength < 16 * minBin) {
+    throw new AnalysisInputError(
+      `segmentLength must be at least 16·minBin = ${16 * minBin} so each stage is read well below its Nyquist, got ${welch.segmentLength}`,
+    );
+  }
+  const minAverages = options.minAverages ?? 2;
+  if (!Number.isInteger(minAverages) || minAverages < 1) {
+    throw new AnalysisInputError(`minAverages must be an integer >= 1, got ${String(minAverages)}`);
+  }
+  const pointsPerDecade = options.pointsPerDecade ?? 30;
+  if (!(typeof pointsPerDecade === 'number' && Number.isFinite(pointsPerDecade) && pointsPerDecade >= 0)) {
+    throw new AnalysisInputError(`pointsPerDecade must be a number >= 0, got ${String(pointsPerDecade)}`);
+  }
+  const decimatorOrder = options.decimatorOrder ?? 6;
+  if (!Number.isInteger(decimatorOrder) || decimatorOrder < 2 || decimatorOrder > 16) {
+    throw new AnalysisInputError(`decimatorOrder must be an integer in [2, 16], got ${String(decimatorOrder)}`);
+  }
+  return { welch, minBin, minAverages, pointsPerDecade, decimatorOrder };
+}
+
+interface Stage {
+  welch: WelchAccumulator;
+  decimator: DecimatorByTwo;
+  rateHz: number;
+}
+
+export function createLogFrequencyAccumulator(options: LogFrequencyOptions): LogFrequencyAccumulator {
+  const o = resolveLogFrequencyOptions(options);
+  const fs = o.welch.sampleRateHz;
+  const L = o.welch.segmentLength;
+  const stages: Stage[] = [];
+  let samplesSeen = 0;
+
+  function makeStage(s: number): Stage {
+    const rateHz = fs / 2 ** s;
+    return {
+      welch: createWelchAccumulator({
+        sampleRateHz: rateHz,
+        segmentLength: L,
+        window: o.welch.window,
+        overlap: o.welch.overlap,
+        detrend: o.welch.detrend,
+        scaling: 'density',
+      }),
+      decimator: createDecimatorByTwo(o.decimatorOrder),
+      rateHz,
+    };
+  }
+
+  function feed(s: number, x: ArrayLike<number>): void {
+    if (x.length === 0) return;
+    if (s >= stages.length) stages.push(makeStage(s));
+    const stage = stages[s];
+    stage.welch.push(x);
+    if (s + 1 < MAX_STAGES) feed(s + 1, stage.decimator.push(x));
+  }
+
+  return {
+    options: o,
+    get samplesSeen() {
+      return samplesSeen;
+    },
+    get stageCount() {
+      return stages.length;
+    },
+    push(x) {
+      samplesSeen += x.length;
+      feed(0, x);
+    },
+    result(): LogFrequencySpectrum {
+      const results: (WelchSpectrum | null)[] = stages.map((st) => (st.welch.segments > 0 ? st.welch.result() : null));
+      if (results.length === 0 || results[0] === null) {
+        throw new AnalysisInputError(
+          `the series has ${samplesSeen} samples, fewer than one segment of ${L}: choose a shorter segment`,
+        );
+      }
+      // deepest stage meeting K ≥ minAverages (reliable), and deepest with any segment
+      let reliable = -1;
+      let deepest = 0;
+      for (let s = 0; s < results.length; s++) {
+        const r = results[s];
+        if (r === null) break;
+        deepest = s;
+        if (r.averages >= o.minAverages && reliable === s - 1) reliable = s;
+      }
+      const q = o.decimatorOrder;
+      const fList: number[] = [];
+      const pList: number[] = [];
+      const kList: number[] = [];
+      const resList: number[] = [];
+      const sList: number[] = [];
+      const add = (s: number, m: number): void => {
+        const r = results[s]!;
+        const f = r.frequencyHz[m];
+        // divide out the droop of the s binomial filters: Π_j cos^{2q}(π f / r_j), r_j = fs/2^j
+        let gain = 1;
+        for (let j = 0; j < s; j++) gain *= binomialPowerGain(f, stages[j].rateHz, q);
+        fList.push(f);
+        pList.push(r.psd[m] / gain);
+        kList.push(r.averages);
+        resList.push(stages[s].rateHz / L);
+        sList.push(s);
+      };
+      const lowEdge = (s: number): number => (o.minBin * stages[s].rateHz) / L;
+      const reliableFromHz = reliable >= 0 ? lowEdge(reliable) : fs / 2;
+      // below the rule: the deepest stage's bins m ≥ 1 under reliableFromHz
+      {
+        const r = results[deepest]!;
+        for (let m = 1; m < r.psd.length && r.frequencyHz[m] < reliableFromHz; m++) add(deepest, m);
+      }
+      // reliable stages, deepest first: stage s covers [minBin·fs_s/L, minBin·fs_{s−1}/L), stage 0 up to fs/2
+      for (let s = reliable; s >= 0; s--) {
+        const r = results[s]!;
+        const top = s === 0 ? Infinity : lowEdge(s - 1);
+        for (let m = o.minBin; m < r.psd.length && r.frequencyHz[m] < top; m++) add(s, m);
+      }
+      const base = {
+        reliableFromHz,
+        sampleRateHz: fs,
+        segmentLength: L,
+        window: o.welch.window,
+        samplesSeen,
+      };
+      if (o.pointsPerDecade === 0) {
+        return {
+          ...base,
+          frequencyHz: Float64Array.from(fList),
+          psd: Float64Array.from(pList),
+          averages: Float64Array.from(kList),
+          resolutionHz: Float64Array.from(resList),
+          stage: Uint8Array.from(sList),
+        };
+      }
+      // geometric bins from the lowest point, mean of linear values (as analysis/spectrum/log-binning.ts)
+      const lo = fList[0];
+      const ppd = o.pointsPerDecade;
+      const F: number[] = [];
+      const P: number[] = [];
+      const K: number[] = [];
+      const R: number[] = [];
+      const S: number[] = [];
+      const counts: number[] = [];
+      let current = -1;
+      for (let i = 0; i < fList.length; i++) {
+        const bin = Math.floor(ppd * Math.log10(fList[i] / lo) + 1e-9);
+        if (bin !== current) {
+          F.push(0);
+          P.push(0);
+          K.push(0);
+          R.push(0);
+          S.push(sList[i]);
+          counts.push(0);
+          current = bin;
+        }
+        const j = F.length - 1;
+        F[j] += fList[i];
+        P[j] += pList[i];
+        K[j] += kList[i];
+        R[j] += resList[i];
+        counts[j]++;
+      }
+      for (let j = 0; j < F.length; j++) {
+        F[j] /= counts[j];
+        P[j] /= counts[j]; // mean of linear values
+      }
+      return {
+        ...base,
+        frequencyHz: Float64Array.from(F),
+        psd: Float64Array.from(P),
+        averages: Float64Array.from(K),
+        resolutionHz: Float64Array.from(R),
+        stage: Uint8Array.from(S),
+      };
+    },
+  };
+}

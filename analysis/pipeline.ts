@@ -1,0 +1,515 @@
+/**
+ * analyzeCapture — the streaming path of one capture: bytes → samples → frequency → spectra → figures.
+ *
+ *   reader (io/: CSV | NPY | WAV | raw, format sniffed unless given)
+ *     → frequency stage (phase/frequency-stage.ts: unwrap | analytic signal → ν in Hz)
+ *     → Welch accumulator on the linear grid (spectrum/welch.ts: the stated window/segment/overlap)
+ *       + log-frequency accumulator (spectrum/log-frequency.ts: 1/T0 … fs/2)
+ *     → figures: noise model (noise/model-fit.ts), spurs on the linear grid (noise/spurs.ts),
+ *       white floor and intrinsic linewidth π·S_ν,white (linewidth/white-floor.ts),
+ *       β-separation-line linewidth (linewidth/beta-line.ts), lineshape FWHM (linewidth/lineshape.ts).
+ * The same code serves the CLI (node fs stream), the worker thread and the tests. Memory is bounded:
+ * no stage holds the record; each chunk becomes one block of samples and is dropped after use.
+ * Options are checked once at entry (one AnalysisInputError per broken rule); what depends on the
+ * file (format, sample rate, kind, default segment) is resolved once, when the header has been read.
+ * Units: Hz, s; every S_ν one-sided Hz²/Hz.
+ * Defaults: window 'hann'; overlap 0.5; segment the largest power of two ≤ N/8 within [256, 65536]
+ * (4096 when the record length cannot be estimated); per-segment linear detrend (removes the carrier
+ * offset and a drift, METHODS 1.4 and 2.3); observation time T0 = the record length; white-floor band
+ * found automatically above the first log-frequency point with ≥ 10 averages; spectra in the report
+ * only with `series`.
+ * Kind: given, or two channels → 'iq', or a CSV column name (phase, frequency, beat); otherwise the
+ * kind must be given. Sample rate: given (wins, with a warning when the file states another), or
+ * the file's (WAV header, CSV time column).
+ * Check: white frequency noise h0 = 1e4 Hz²/Hz gives whiteFloor ≈ 1e4 and intrinsicLinewidthHz ≈
+ * π·1e4 = 31415.9 Hz (tests/analysis/pipeline.test.ts).
+ */
+import { AnalysisInputError } from './errors';
+import { createReader } from './io/create-reader';
+import { inferKind } from './io/preview';
+import { type FormatSource, SNIFF_BYTES, chooseFormat } from './io/sniff';
+import { betaLine } from './linewidth/beta-line';
+import { lineshape } from './linewidth/lineshape';
+import { whiteFloor } from './linewidth/white-floor';
+import { fitNoiseModel } from './noise/model-fit';
+import { findSpurs } from './noise/spurs';
+import { createFrequencyStage } from './phase/frequency-stage';
+import { createLogFrequencyAccumulator } from './spectrum/log-frequency';
+import { createWelchAccumulator } from './spectrum/welch';
+import { WINDOW_NAMES } from './spectrum/windows';
+import type {
+  BetaLineResult,
+  ByteOrder,
+  CaptureFormat,
+  CaptureKind,
+  DetrendName,
+  FrequencyStageSummary,
+  LineshapeResult,
+  LogFrequencySpectrum,
+  NoiseModelFit,
+  ProgressFn,
+  RawDtype,
+  ReaderInfo,
+  SampleBlock,
+  Spur,
+  StreamingReader,
+  WelchSpectrum,
+  WhiteFloorResult,
+  WindowName,
+} from './types';
+
+export interface AnalyzeOptions {
+  kind?: CaptureKind;
+  format?: CaptureFormat;
+  fileName?: string;
+  sampleRateHz?: number;
+  /** raw files: element type; channels (2 = interleaved I,Q; default 2 for kind 'iq', else 1); byte order (default little) */
+  dtype?: RawDtype;
+  channels?: 1 | 2;
+  byteOrder?: ByteOrder;
+  window?: WindowName;
+  /** Welch segment length L, samples */
+  segment?: number;
+  /** overlap fraction in [0, 1) */
+  overlap?: number;
+  /** T0, s (default the record length) */
+  observationTimeS?: number;
+  /** band [lo, hi] Hz for the white floor (default: found automatically) */
+  floorBandHz?: [number, number];
+  /** put the spectra in the report */
+  series?: boolean;
+}
+
+export interface CaptureSource {
+  chunks: AsyncIterable<Uint8Array> | Iterable<Uint8Array>;
+  /** file size, for progress and for early checks of header claims */
+  totalBytes?: number;
+}
+
+export interface ResolvedAnalyzeOptions {
+  kind: CaptureKind | undefined;
+  format: CaptureFormat | undefined;
+  fileName: string | undefined;
+  sampleRateHz: number | undefined;
+  dtype: RawDtype | undefined;
+  channels: 1 | 2 | undefined;
+  byteOrder: ByteOrder | undefined;
+  window: WindowName;
+  segment: number | undefined;
+  overlap: number;
+  observationTimeS: number | undefined;
+  floorBandHz: [number, number] | undefined;
+  series: boolean;
+}
+
+/** The report: plain JSON (the CLI prints it as it is). */
+export interface AnalysisReport {
+  input: {
+    kind: CaptureKind;
+    format: CaptureFormat;
+    formatFrom: FormatSource;
+    fileName?: string;
+    channels: 1 | 2;
+    samples: number;
+    sampleRateHz: number;
+    durationS: number;
+  };
+  settings: {
+    window: WindowName;
+    segment: number;
+    overlap: number;
+    averages: number;
+    equivalentAverages: number;
+    enbwHz: number;
+    detrend: DetrendName;
+    frequencyRateHz: number;
+  };
+  whiteFloor: { valueHz2PerHz: number; bandHz: [number, number] };
+  intrinsicLinewidthHz: number;
+  betaLine: { observationTimeS: number; crossingHz: number | null; areaHz2: number; linewidthHz: number };
+  lineshape: { fwhmHz: number | null };
+  noiseModel: { whiteHz2PerHz: number; flickerHz2: number; randomWalkHz3: number; cornerHz: number | null };
+  spurs: Spur[];
+  carrier: { offsetHz: number; driftHzPerS: number; intermediateFrequencyHz?: number };
+  warnings: string[];
+  spectrum?: { frequencyHz: number[]; frequencyNoiseHz2PerHz: number[] };
+  logSpectrum?: { frequencyHz: number[]; frequencyNoiseHz2PerHz: number[]; averages: number[] };
+}
+
+export interface CaptureAnalysis {
+  report: AnalysisReport;
+  readerInfo: ReaderInfo;
+  frequencyStage: FrequencyStageSummary;
+  welch: WelchSpectrum;
+  logSpectrum: LogFrequencySpectrum;
+  whiteFloor: WhiteFloorResult;
+  betaLine: BetaLineResult;
+  lineshape: LineshapeResult;
+  noiseModel: NoiseModelFit;
+  spurs: Spur[];
+}
+
+const KINDS: readonly CaptureKind[] = ['phase', 'iq', 'beat', 'frequency'];
+const FORMATS: readonly CaptureFormat[] = ['csv', 'npy', 'wav', 'raw'];
+const DTYPES: readonly RawDtype[] = ['int16', 'int32', 'float32', 'float64'];
+export const DEFAULT_OVERLAP = 0.5;
+export const MIN_SEGMENT = 64;
+export const MAX_SEGMENT = 2 ** 24;
+const DETREND: DetrendName = 'linear';
+/** the log-frequency view uses segments of at most this length at every stage */
+const LOG_SEGMENT = 4096;
+/**
+ * The automatic white-floor search starts at the first log-frequency point averaged over at least
+ * this many segments: with fewer, single points scatter by more than −2.3/+3.2 dB (METHODS 1.3,
+ * K_eff = 10) and a search for the lowest flat band is drawn to downward fluctuations.
+ */
+const FLOOR_MIN_AVERAGES = 10;
+/** share of the progress bar for reading (the rest: spectra, then figures) */
+const READ_SHARE = 0.9;
+
+const positiveFinite = (v: unknown): v is number => typeof v === 'number' && Number.isFinite(v) && v > 0;
+
+/** Checks every option once; throws one AnalysisInputError naming the first broken rule and its value. */
+export function resolveAnalyzeOptions(options: AnalyzeOptions): ResolvedAnalyzeOptions {
+  const o = options ?? {};
+  const bad = (rule: string, value: unknown, option: string): never => {
+    throw new AnalysisInputError(`${rule}, got ${JSON.stringify(value) ?? String(value)}`, `option ${option}`);
+  };
+  if (o.kind !== undefined && !KINDS.includes(o.kind)) bad(`kind must be one of ${KINDS.join(', ')}`, o.kind, 'kind');
+  if (o.format !== undefined && !FORMATS.includes(o.format)) bad(`format must be one of ${FORMATS.join(', ')}`, o.format, 'format');
+  if (o.sampleRateHz !== undefined && !positiveFinite(o.sampleRateHz)) {
+    bad('the sample rate must be a positive number of Hz', o.sampleRateHz, 'sampleRateHz');
+  }
+  if (o.dtype !== undefined && !DTYPES.includes(o.dtype)) bad(`dtype must be one of ${DTYPES.join(', ')}`, o.dtype, 'dtype');
+  if (o.channels !== undefined && o.channels !== 1 && o.channels !== 2) bad('channels must be 1 or 2', o.channels, 'channels');
+  if (o.byteOrder !== undefined && o.byteOrder !== 'little' && o.byteOrder !== 'big') {
+    bad("byte order must be 'little' or 'big'", o.byteOrder, 'byteOrder');
+  }
+  const window = o.window ?? 'hann';
+  if (!WINDOW_NAMES.includes(window)) bad(`window must be one of ${WINDOW_NAMES.join(', ')}`, window, 'window');
+  if (o.segment !== undefined && !(Number.isInteger(o.segment) && o.segment >= MIN_SEGMENT && o.segment <= MAX_SEGMENT)) {
+    bad(`the segment must be an integer number of samples in [${MIN_SEGMENT}, ${MAX_SEGMENT}]`, o.segment, 'segment');
+  }
+  const overlap = o.overlap ?? DEFAULT_OVERLAP;
+  if (!(typeof overlap === 'number' && Number.isFinite(overlap) && overlap >= 0 && overlap < 1)) {
+    bad('the overlap must be a fraction in [0, 1)', overlap, 'overlap');
+  }
+  if (o.observationTimeS !== undefined && !positiveFinite(o.observationTimeS)) {
+    bad('the observation time must be a positive number of seconds', o.observationTimeS, 'observationTimeS');
+  }
+  const band = o.floorBandHz;
+  if (band !== undefined) {
+    if (!Array.isArray(band) || band.length !== 2 || !positiveFinite(band[0]) || !positiveFinite(band[1]) || !(band[0] < band[1])) {
+      bad('the floor band must be [lo, hi] Hz with 0 < lo < hi', band, 'floorBandHz');
+    }
+  }
+  if (o.series !== undefined && typeof o.series !== 'boolean') bad('series must be true or false', o.series, 'series');
+  if (o.format !== undefined && o.format !== 'raw') {
+    for (const key of ['dtype', 'channels', 'byteOrder'] as const) {
+      if (o[key] !== undefined) bad(`${key} applies to raw binary files only (the format is ${o.format})`, o[key], key);
+    }
+  }
+  return {
+    kind: o.kind,
+    format: o.format,
+    fileName: o.fileName,
+    sampleRateHz: o.sampleRateHz,
+    dtype: o.dtype,
+    channels: o.channels,
+    byteOrder: o.byteOrder,
+    window,
+    segment: o.segment,
+    overlap,
+    observationTimeS: o.observationTimeS,
+    floorBandHz: band ? [band[0], band[1]] : undefined,
+    series: o.series ?? false,
+  };
+}
+
+/** Default segment: the largest power of two ≤ N/8, within [256, 65536]; 4096 when N is unknown. */
+export function defaultSegment(estimatedSamples: number | undefined): number {
+  if (estimatedSamples === undefined || !Number.isFinite(estimatedSamples)) return 4096;
+  let L = 256;
+  while (L * 2 <= estimatedSamples / 8 && L < 65536) L *= 2;
+  return L;
+}
+
+interface CaptureSettings {
+  kind: CaptureKind;
+  sampleRateHz: number;
+  segment: number;
+}
+
+/** What the file tells, merged with the options: resolved once, when the reader knows its header. */
+function resolveCapture(o: ResolvedAnalyzeOptions, info: ReaderInfo, estimatedSamples: number | undefined, warnings: string[]): CaptureSettings {
+  let fs = o.sampleRateHz;
+  if (fs === undefined) fs = info.sampleRateHz;
+  else if (info.sampleRateHz !== undefined && Math.abs(info.sampleRateHz / fs - 1) > 1e-9) {
+    warnings.push(`the sample rate given (${fs} Hz) overrides the file's (${info.sampleRateHz} Hz)`);
+  }
+  if (fs === undefined) {
+    throw new AnalysisInputError(
+      `the sample rate is missing: a ${info.format} file ${info.format === 'csv' ? 'without a time column ' : ''}does not state it, so it must be given`,
+      'option sampleRateHz',
+    );
+  }
+  if (!positiveFinite(fs)) {
+    throw new AnalysisInputError(`the sample rate must be positive, the file states ${fs} Hz`, 'option sampleRateHz');
+  }
+  const kind = o.kind ?? inferKind(info);
+  if (kind === undefined) {
+    throw new AnalysisInputError(
+      'the kind of capture is missing: one channel may hold phase, frequency or a beat note, so it must be given',
+      'option kind',
+    );
+  }
+  if (kind === 'iq' && info.channelCount !== 2) {
+    throw new AnalysisInputError("kind 'iq' needs two channels (I, Q); the file has one", 'option kind');
+  }
+  if (kind !== 'iq' && info.channelCount !== 1) {
+    throw new AnalysisInputError(`kind '${kind}' needs one channel; the file has two (I, Q: kind 'iq')`, 'option kind');
+  }
+  return { kind, sampleRateHz: fs, segment: o.segment ?? defaultSegment(estimatedSamples) };
+}
+
+const toArray = (a: ArrayLike<number>): number[] => Array.from(a);
+
+/**
+ * Streams a capture through the analysis and returns the report and the full results.
+ * `onProgress(fraction, stage)` is called with stage 'reading', then 'spectrum', then 'figures'.
+ */
+export async function analyzeCapture(source: CaptureSource, options: AnalyzeOptions, onProgress?: ProgressFn): Promise<CaptureAnalysis> {
+  const o = resolveAnalyzeOptions(options);
+  const totalBytes = source.totalBytes;
+  const warnings: string[] = [];
+  let lastFraction = -1;
+  let lastStage = '';
+  const progress = (fraction: number, stage: string) => {
+    if (!onProgress) return;
+    if (stage !== lastStage || fraction >= lastFraction + 0.005 || fraction === 1) {
+      lastFraction = fraction;
+      lastStage = stage;
+      onProgress(Math.min(1, fraction), stage);
+    }
+  };
+  progress(0, 'reading');
+
+  let reader: StreamingReader | undefined;
+  let formatFrom: FormatSource = 'option';
+  let format: CaptureFormat | undefined = o.format;
+  const held: Uint8Array[] = [];
+  let heldBytes = 0;
+  let bytesIn = 0;
+
+  let settings: CaptureSettings | undefined;
+  let stage: ReturnType<typeof createFrequencyStage> | undefined;
+  let welchAcc: ReturnType<typeof createWelchAccumulator> | undefined;
+  let logAcc: ReturnType<typeof createLogFrequencyAccumulator> | undefined;
+  let inputSamples = 0;
+
+  const openReader = (head: Uint8Array): StreamingReader => {
+    const chosen = chooseFormat(head, o.format, o.fileName);
+    format = chosen.format;
+    formatFrom = chosen.from;
+    if (format !== 'raw') {
+      for (const key of ['dtype', 'channels', 'byteOrder'] as const) {
+        if (o[key] !== undefined) {
+          throw new AnalysisInputError(`${key} applies to raw binary files only (this file is ${format})`, `option ${key}`);
+        }
+      }
+    }
+    const channels = o.channels ?? (format === 'raw' && o.kind === 'iq' ? 2 : undefined);
+    return createReader({ format, dtype: o.dtype, channels, byteOrder: o.byteOrder, totalBytes });
+  };
+
+  const consume = (blocks: SampleBlock[]): void => {
+    for (const block of blocks) {
+      if (!stage) {
+        const info = reader!.info!;
+        const estimate =
+          info.declaredSamples ??
+          (totalBytes !== undefined && bytesIn > 0 ? (totalBytes * reader!.samplesOut) / bytesIn : undefined);
+        settings = resolveCapture(o, info, estimate, warnings);
+        stage = createFrequencyStage({ kind: settings.kind, sampleRateHz: settings.sampleRateHz });
+        const rate = stage.outputRateHz;
+        welchAcc = createWelchAccumulator({
+          sampleRateHz: rate,
+          segmentLength: settings.segment,
+          window: o.window,
+          overlap: o.overlap,
+          detrend: DETREND,
+        });
+        logAcc = createLogFrequencyAccumulator({
+          sampleRateHz: rate,
+          segmentLength: Math.min(settings.segment, LOG_SEGMENT),
+          window: o.window,
+          overlap: o.overlap,
+          detrend: DETREND,
+        });
+      }
+      inputSamples += block.channels[0].length;
+      const nu = stage.push(block);
+      if (nu.length > 0) {
+        welchAcc!.push(nu);
+        logAcc!.push(nu);
+      }
+    }
+  };
+
+  const feed = (chunk: Uint8Array): void => {
+    bytesIn += chunk.length;
+    if (!reader) {
+      if (o.format === undefined && heldBytes + chunk.length < SNIFF_BYTES) {
+        held.push(chunk);
+        heldBytes += chunk.length;
+        return;
+      }
+      const head = held.length === 0 ? chunk : concat([...held, chunk]);
+      held.length = 0;
+      heldBytes = 0;
+      reader = openReader(head);
+      consume(reader.push(head));
+      return;
+    }
+    consume(reader.push(chunk));
+  };
+
+  for await (const chunk of source.chunks) {
+    if (chunk.length === 0) continue;
+    feed(chunk);
+    if (totalBytes) progress((READ_SHARE * Math.min(bytesIn, totalBytes)) / totalBytes, 'reading');
+  }
+  if (!reader) {
+    const head = concat(held);
+    reader = openReader(head);
+    consume(reader.push(head));
+  }
+  consume(reader.end());
+  const info = reader.info;
+  if (!stage || !settings || !welchAcc || !logAcc || !info) {
+    throw new AnalysisInputError('the file holds no samples', 'byte offset 0');
+  }
+  const { tail, summary } = stage.finish();
+  if (tail.length > 0) {
+    welchAcc.push(tail);
+    logAcc.push(tail);
+  }
+
+  progress(READ_SHARE, 'spectrum');
+  const L = settings.segment;
+  if (welchAcc.segments < 2) {
+    const hop = welchAcc.options.hop;
+    throw new AnalysisInputError(
+      `the record is too short for two segments: ${summary.frequencySamples} frequency samples, ` +
+        `a segment of ${L} with overlap ${o.overlap} needs at least ${L + hop}; choose a shorter segment`,
+      `${inputSamples} samples`,
+    );
+  }
+  const welch = welchAcc.result();
+  const logSpectrum = logAcc.result();
+
+  progress(READ_SHARE + 0.05, 'figures');
+  const fs = settings.sampleRateHz;
+  const durationS = inputSamples / fs;
+  const T0 = o.observationTimeS ?? durationS;
+  // a beat note is trusted up to about half the demodulator's pass band (METHODS 2.2)
+  const trustedTopHz = summary.bandwidthHz !== undefined ? summary.bandwidthHz / 2 : undefined;
+  const band: [number, number] | undefined = trustedTopHz !== undefined ? [logSpectrum.frequencyHz[0] || 1e-12, trustedTopHz] : undefined;
+
+  const noiseModel = fitNoiseModel(logSpectrum, band ? { bandHz: band } : {});
+  const spurs = findSpurs(welch, noiseModel, band ? { bandHz: band } : {});
+  // the automatic floor search starts where every log point rests on ≥ 10 averages
+  let firstSteady = 0;
+  while (firstSteady < logSpectrum.averages.length - 1 && logSpectrum.averages[firstSteady] < FLOOR_MIN_AVERAGES) firstSteady++;
+  const floor = whiteFloor(
+    logSpectrum,
+    o.floorBandHz !== undefined
+      ? { bandHz: o.floorBandHz, spurs }
+      : {
+          spurs,
+          minHz: Math.max(logSpectrum.reliableFromHz, logSpectrum.frequencyHz[firstSteady]),
+          ...(trustedTopHz !== undefined ? { maxHz: trustedTopHz / 5 } : {}),
+        },
+  );
+  const beta = betaLine(logSpectrum, { observationTimeS: T0, maxHz: trustedTopHz });
+  const shape = lineshape(logSpectrum, { observationTimeS: T0, maxHz: trustedTopHz, tailLevelHz2PerHz: floor.valueHz2PerHz });
+
+  warnings.push(...summary.warnings, ...noiseModel.warnings, ...floor.warnings, ...beta.warnings, ...shape.warnings);
+
+  const report: AnalysisReport = {
+    input: {
+      kind: settings.kind,
+      format: format!,
+      formatFrom,
+      ...(o.fileName !== undefined ? { fileName: o.fileName } : {}),
+      channels: info.channelCount,
+      samples: inputSamples,
+      sampleRateHz: fs,
+      durationS,
+    },
+    settings: {
+      window: o.window,
+      segment: L,
+      overlap: o.overlap,
+      averages: welch.averages,
+      equivalentAverages: welch.equivalentAverages,
+      enbwHz: welch.enbwHz,
+      detrend: DETREND,
+      frequencyRateHz: stage.outputRateHz,
+    },
+    whiteFloor: { valueHz2PerHz: floor.valueHz2PerHz, bandHz: floor.bandHz },
+    // Δν = π·S_ν,white (Lorentzian FWHM)
+    intrinsicLinewidthHz: floor.intrinsicLinewidthHz,
+    betaLine: { observationTimeS: beta.observationTimeS, crossingHz: beta.crossingHz, areaHz2: beta.areaHz2, linewidthHz: beta.linewidthHz },
+    lineshape: { fwhmHz: shape.fwhmHz },
+    noiseModel: {
+      whiteHz2PerHz: noiseModel.whiteHz2PerHz,
+      flickerHz2: noiseModel.flickerHz2,
+      randomWalkHz3: noiseModel.randomWalkHz3,
+      cornerHz: noiseModel.cornerHz,
+    },
+    spurs: spurs.map((s) => ({ frequencyHz: s.frequencyHz, heightDb: s.heightDb })),
+    carrier: {
+      offsetHz: summary.carrierOffsetHz,
+      driftHzPerS: summary.driftHzPerS,
+      ...(summary.intermediateFrequencyHz !== undefined ? { intermediateFrequencyHz: summary.intermediateFrequencyHz } : {}),
+    },
+    warnings,
+  };
+  if (o.series) {
+    // every bin above DC: the one-sided S_ν on the linear Welch grid
+    report.spectrum = {
+      frequencyHz: toArray(welch.frequencyHz.subarray(1)),
+      frequencyNoiseHz2PerHz: toArray(welch.psd.subarray(1)),
+    };
+    report.logSpectrum = {
+      frequencyHz: toArray(logSpectrum.frequencyHz),
+      frequencyNoiseHz2PerHz: toArray(logSpectrum.psd),
+      averages: toArray(logSpectrum.averages),
+    };
+  }
+  progress(1, 'figures');
+  return {
+    report,
+    readerInfo: info,
+    frequencyStage: summary,
+    welch,
+    logSpectrum,
+    whiteFloor: floor,
+    betaLine: beta,
+    lineshape: shape,
+    noiseModel,
+    spurs,
+  };
+}
+
+function concat(parts: Uint8Array[]): Uint8Array {
+  if (parts.length === 1) return parts[0];
+  const out = new Uint8Array(parts.reduce((n, p) => n + p.length, 0));
+  let p = 0;
+  for (const part of parts) {
+    out.set(part, p);
+    p += part.length;
+  }
+  return out;
+}

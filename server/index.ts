@@ -10,6 +10,7 @@ import { loadEnv, projectRoot, type Env } from './config/env';
 import { createApp } from './app';
 import { createDb } from './db/knex';
 import { createLogger } from './lib/logger';
+import { createServices } from './services';
 
 function fail(message: string): never {
   process.stderr.write(`phaseloom: error: ${message}\n`);
@@ -32,7 +33,16 @@ const clientDir = path.join(projectRoot, 'dist', 'client');
 if (!existsSync(path.join(clientDir, 'index.html'))) {
   process.stderr.write('phaseloom: the client is not built (dist/client is missing); serving the API only — run `npm run build`\n');
 }
-const app = createApp({ db, env, logger, clientDir });
+const services = createServices(db);
+const app = createApp({ db, env, logger, services, clientDir });
+
+// Expired sessions are refused by lucia anyway; sweep their rows now and then.
+const SESSION_SWEEP_MS = 6 * 60 * 60 * 1000;
+function sweepSessions(): void {
+  services.auth.lucia.deleteExpiredSessions().catch((err) => logger.warn({ err }, 'sweeping expired sessions failed'));
+}
+const sweeper = setInterval(sweepSessions, SESSION_SWEEP_MS);
+sweeper.unref();
 
 const server = app.listen(env.PORT, env.HOST);
 server.on('error', async (err: NodeJS.ErrnoException) => {
@@ -46,14 +56,16 @@ server.on('error', async (err: NodeJS.ErrnoException) => {
 });
 server.on('listening', () => {
   const { port } = server.address() as AddressInfo;
-  logger.info({ host: env.HOST, port }, 'listening');
+  logger.debug({ host: env.HOST, port }, 'listening');
   process.stderr.write(`phaseloom: serving on http://${env.HOST}:${port}\n`);
+  sweepSessions();
 });
 
 let stopping = false;
 function shutdown(signal: string): void {
   if (stopping) return;
   stopping = true;
+  clearInterval(sweeper);
   logger.info({ signal }, 'shutting down');
   // Give open requests a few seconds, then close what is left.
   const force = setTimeout(() => server.closeAllConnections(), 5_000);

@@ -15,8 +15,9 @@
  * squares — the quasi-likelihood fit of a gamma-distributed response with identity link, McCullagh &
  * Nelder, "Generalized Linear Models", 2nd ed. (1989), ch. 8). Each step solves the weighted problem
  * exactly under a_k >= 0 by trying every subset of the three terms (exact non-negative least squares
- * for three unknowns), solved by QR (ml-matrix). Points standing more than 10 dB above the model are
- * spurs and are left out, then the fit is repeated (never fit dB values: METHODS 3.2).
+ * for three unknowns), each by its equilibrated normal equations (ml-matrix). Points standing more
+ * than 10 dB above the model are spurs and are left out, then the fit is repeated (never fit dB
+ * values: METHODS 3.2). Memory and time are O(points) per step.
  * Defaults: band = the whole spectrum above 0 Hz; first weights 1/S_data²; spur threshold 10 dB;
  * at most 100 reweighting steps; converged when no model value moves by more than 1e-10 relative.
  * Worked check: S_ν = 10⁴ + 10⁶/f exactly → a₀ = 10⁴, a₋₁ = 10⁶, a₋₂ = 0, f_c = 100 Hz.
@@ -104,50 +105,61 @@ function basis(f: number, k: number): number {
 
 /**
  * min Σ wᵢ(Sᵢ − Σ a_k φ_k(fᵢ))², a >= 0, wᵢ = 1/Mᵢ², over the points with use[i]:
- * every subset of the terms solved by least squares, the best feasible one kept.
+ * every subset of the terms solved by least squares (normal equations, columns equilibrated,
+ * solved with ml-matrix), the best feasible one kept.
  */
 function weightedNonNegativeFit(f: Float64Array, s: Float64Array, model: Float64Array, use: Uint8Array): Float64Array {
-  const rows: number[] = [];
-  for (let i = 0; i < f.length; i++) if (use[i]) rows.push(i);
+  // weighted normal equations G a = b for all three terms, and Σ w S² for the cost
+  const g = new Float64Array(TERMS * TERMS);
+  const b = new Float64Array(TERMS);
+  let ss = 0;
+  const phi = new Float64Array(TERMS);
+  for (let i = 0; i < f.length; i++) {
+    if (!use[i]) continue;
+    const w = 1 / (model[i] * model[i]);
+    phi[0] = 1;
+    phi[1] = 1 / f[i];
+    phi[2] = phi[1] * phi[1];
+    for (let k = 0; k < TERMS; k++) {
+      b[k] += w * phi[k] * s[i];
+      for (let l = 0; l < TERMS; l++) g[k * TERMS + l] += w * phi[k] * phi[l];
+    }
+    ss += w * s[i] * s[i];
+  }
   const best = new Float64Array(TERMS);
   let bestCost = Infinity;
   for (let mask = 1; mask < 1 << TERMS; mask++) {
     const cols: number[] = [];
     for (let k = 0; k < TERMS; k++) if (mask & (1 << k)) cols.push(k);
-    if (rows.length < cols.length) continue;
-    // rows scaled by 1/Mᵢ; columns scaled to unit norm for conditioning
-    const a = new Matrix(rows.length, cols.length);
-    const b = new Matrix(rows.length, 1);
-    const norms = new Float64Array(cols.length);
-    for (let r = 0; r < rows.length; r++) {
-      const i = rows[r];
-      const w = 1 / model[i];
-      b.set(r, 0, s[i] * w);
-      for (let c = 0; c < cols.length; c++) {
-        const v = basis(f[i], cols[c]) * w;
-        a.set(r, c, v);
-        norms[c] += v * v;
-      }
+    const m = cols.length;
+    // equilibrate: scale each column by 1/√G_kk
+    const scale = cols.map((k) => 1 / Math.sqrt(g[k * TERMS + k]));
+    if (scale.some((v) => !Number.isFinite(v))) continue;
+    const a = new Matrix(m, m);
+    const rhs = new Matrix(m, 1);
+    for (let r = 0; r < m; r++) {
+      rhs.set(r, 0, b[cols[r]] * scale[r]);
+      for (let c = 0; c < m; c++) a.set(r, c, g[cols[r] * TERMS + cols[c]] * scale[r] * scale[c]);
     }
-    for (let c = 0; c < cols.length; c++) {
-      const n = Math.sqrt(norms[c]);
-      norms[c] = n;
-      for (let r = 0; r < rows.length; r++) a.set(r, c, a.get(r, c) / n);
+    let x: Matrix;
+    try {
+      x = solve(a, rhs);
+    } catch {
+      continue; // singular subset
     }
-    const x = solve(a, b);
     const coef = new Float64Array(TERMS);
     let feasible = true;
-    for (let c = 0; c < cols.length; c++) {
-      const v = x.get(c, 0) / norms[c];
-      if (!(v >= 0)) feasible = false;
-      coef[cols[c]] = v;
+    for (let r = 0; r < m; r++) {
+      const v = x.get(r, 0) * scale[r];
+      if (!(v >= 0) || !Number.isFinite(v)) feasible = false;
+      coef[cols[r]] = v;
     }
     if (!feasible) continue;
-    let cost = 0;
-    for (const i of rows) {
-      const m = coef[0] + coef[1] / f[i] + coef[2] / (f[i] * f[i]);
-      const e = (s[i] - m) / model[i];
-      cost += e * e;
+    // cost = Σ w (S − Φa)² = Σ w S² − 2 aᵀb + aᵀ G a
+    let cost = ss;
+    for (let k = 0; k < TERMS; k++) {
+      cost -= 2 * coef[k] * b[k];
+      for (let l = 0; l < TERMS; l++) cost += coef[k] * g[k * TERMS + l] * coef[l];
     }
     if (cost < bestCost) {
       bestCost = cost;
@@ -190,7 +202,7 @@ export function fitNoiseModel(spectrum: Spectrum, options: NoiseModelFitOptions 
     for (let i = 0; i < n; i++) model[i] = Math.max(s[i], floor);
   }
   const use = new Uint8Array(n).fill(1);
-  let coef = new Float64Array(TERMS);
+  let coef: Float64Array = new Float64Array(TERMS);
   let iterations = 0;
   let excluded = 0;
   let converged = false;

@@ -34,9 +34,12 @@ export function createCarrierStatistics(sampleRateHz: number): CarrierStatistics
       const n = values.length;
       if (n === 0) return;
       const t0 = count; // sample index of the block's first value
-      let bv = 0;
-      for (let k = 0; k < n; k++) bv += values[k];
-      bv /= n;
+      // block mean about a reference value (the running mean, or the first value): summing
+      // deviations keeps full precision when ν carries a large offset (1e9 Hz)
+      const ref = count > 0 ? meanV : values[0];
+      let dev = 0;
+      for (let k = 0; k < n; k++) dev += values[k] - ref;
+      const bv = ref + dev / n;
       const bt = t0 + (n - 1) / 2;
       const btt = (n * (n * n - 1)) / 12; // Σ(k − k̄)² for k = 0..n−1
       let btv = 0;

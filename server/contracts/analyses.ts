@@ -38,8 +38,8 @@ export type FloorBandHz = z.infer<typeof FloorBandHz>;
 /** The CLI's analysis options in camelCase; one left out takes the engine's default. */
 export const AnalysisSettings = z.strictObject({
   window: WindowName.optional(),
-  /** Welch segment length, samples */
-  segment: z.number().int('must be a whole number').min(16, 'must be at least 16').max(1 << 24, 'must be at most 16777216').optional(),
+  /** Welch segment length, samples (the engine's range: 64 … 2^24) */
+  segment: z.number().int('must be a whole number').min(64, 'must be at least 64').max(1 << 24, 'must be at most 16777216').optional(),
   /** Welch segment overlap, 0 ≤ overlap < 1 (engine default 0.5) */
   overlap: z.number().min(0, 'must be at least 0').lt(1, 'must be below 1').optional(),
   /** T0 of the β-line and lineshape, s (engine default: the record length) */

@@ -13,6 +13,8 @@ export interface CaptureInput {
   channels: 1 | 2 | null;
   byteOrder: 'little' | 'big' | null;
   sizeBytes: number;
+  /** the name the file was uploaded with (reported in result.input.fileName) */
+  fileName: string;
 }
 
 /** The analysis settings of one analyses row (the same names as the CLI's options, camelCase). */

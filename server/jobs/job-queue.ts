@@ -30,6 +30,7 @@ interface ClaimRow {
   channels: number | null;
   byte_order: CaptureInput['byteOrder'];
   size_bytes: number | string;
+  file_name: string;
 }
 
 const parseJson = <T>(v: string | T): T => (typeof v === 'string' ? (JSON.parse(v) as T) : v);
@@ -71,6 +72,7 @@ export async function claimNextJob(db: Knex, runnerId: string): Promise<ClaimedJ
         'c.channels',
         'c.byte_order',
         'c.size_bytes',
+        'c.file_name',
       )) as ClaimRow;
     return {
       analysisId: row.id,
@@ -86,6 +88,7 @@ export async function claimNextJob(db: Knex, runnerId: string): Promise<ClaimedJ
         channels: row.channels === 1 || row.channels === 2 ? row.channels : null,
         byteOrder: row.byte_order,
         sizeBytes: Number(row.size_bytes),
+        fileName: row.file_name,
       },
     };
   });

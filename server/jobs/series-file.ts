@@ -1,6 +1,7 @@
 /**
- * The full S_ν series of an analysis as a file in storage: little-endian binary, so that reading it
- * back for a plot is a copy, not a parse.
+ * The full S_ν series of an analysis as a file in storage — the engine's stitched spectrum, every
+ * Welch bin from about 1/T0 to fs/2 (the CLI's `spectrum` with --series; GET series.csv) — in
+ * little-endian binary, so that reading it back for a plot is a copy, not a parse.
  *   bytes 0–7   ASCII "PLSERIE1"
  *   bytes 8–11  uint32 n, the number of points
  *   then n float64 frequencies (Hz, ascending), then n float64 S_ν values (Hz²/Hz, one-sided)

@@ -39,9 +39,9 @@ export function createWorkerPool(options: WorkerPoolOptions = {}): AnalysisExecu
   const filename = options.filename ?? DEFAULT_WORKER_FILE;
   const pool = new Piscina({
     filename,
-    minThreads: 0,
+    // threads start with the pool and load the engine at once, so the first analysis does not wait
+    minThreads: size,
     maxThreads: size,
-    idleTimeout: 60_000,
     execArgv: /\.[cm]?ts$/.test(filename) ? ['--import', 'tsx'] : [],
     resourceLimits: { maxOldGenerationSizeMb: options.maxOldGenerationSizeMb ?? 2048 },
   });

@@ -24,7 +24,7 @@ export class LocalDiskStorage implements Storage {
     return path.join(this.root, ...key.split('/'));
   }
 
-  async put(key: string, source: Readable | AsyncIterable<Uint8Array>): Promise<StoredObject> {
+  async put(key: string, source: Readable | AsyncIterable<Uint8Array> | Iterable<Uint8Array>): Promise<StoredObject> {
     const target = this.pathOf(key);
     await mkdir(path.dirname(target), { recursive: true });
     const partial = path.join(path.dirname(target), `.partial-${randomBytes(8).toString('hex')}`);

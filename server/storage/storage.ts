@@ -16,7 +16,7 @@ export type StorageConfig = { driver: 'local'; root: string };
 export interface Storage {
   readonly config: StorageConfig;
   /** Writes the whole stream under `key` (replacing what was there). Nothing is left under `key` on failure. */
-  put(key: string, source: Readable | AsyncIterable<Uint8Array>): Promise<StoredObject>;
+  put(key: string, source: Readable | AsyncIterable<Uint8Array> | Iterable<Uint8Array>): Promise<StoredObject>;
   /** A stream of the object's bytes; rejects with a StorageNotFoundError when there is none. */
   open(key: string, options?: { highWaterMark?: number }): Promise<Readable>;
   /** Size of the object, or null when there is none. */

@@ -88,7 +88,11 @@ export function createAnalysesService(deps: AnalysesServiceDeps) {
       return toAnalysis(row, access.benchId);
     },
 
-    async spectrum(userId: string, analysisId: string, query: { view: SpectrumView; points: number }): Promise<SpectrumResponse> {
+    async spectrum(
+      userId: string,
+      analysisId: string,
+      query: { view: SpectrumView; points: number },
+    ): Promise<SpectrumResponse> {
       const { series } = await seriesOf(userId, analysisId);
       return spectrumResponse(series, query.view, query.points);
     },

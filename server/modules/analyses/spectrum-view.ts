@@ -1,5 +1,5 @@
 /**
- * GET /spectrum: the stored S_ν series in one of four views, log-binned to at most N points, with the
+ * GET /spectrum: the stored S_ν series (the engine's stitched spectrum) in one of four views, log-binned to at most N points, with the
  * engine's own helpers — geometric bins holding the mean of the linear S_ν (analysis/spectrum/
  * log-binning.ts), then the view of the binned spectrum (analysis/spectrum/views.ts):
  * S_φ = S_ν/f², L(f) = 10·log10(S_φ/2) dBc/Hz (IEEE Std 1139-2008), √S_ν.

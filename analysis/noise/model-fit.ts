@@ -98,11 +98,6 @@ function resolveNoiseModelFitOptions(spectrum: Spectrum, options: NoiseModelFitO
   return { lowHz, highHz, initial, spurRatio: Math.pow(10, thresholdDb / 10), maxIterations };
 }
 
-/** basis functions 1, 1/f, 1/f² */
-function basis(f: number, k: number): number {
-  return k === 0 ? 1 : k === 1 ? 1 / f : 1 / (f * f);
-}
-
 /**
  * min Σ wᵢ(Sᵢ − Σ a_k φ_k(fᵢ))², a >= 0, wᵢ = 1/Mᵢ², over the points with use[i]:
  * every subset of the terms solved by least squares (normal equations, columns equilibrated,

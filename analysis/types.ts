@@ -67,7 +67,10 @@ export interface WhiteFloorResult extends WhiteFloor {
 
 export interface BetaLineResult {
   observationTimeS: number;
-  /** highest frequency where S_ν crosses β(f) = 8 ln2 f / π²; null when S_ν never exceeds it */
+  /**
+   * highest frequency where S_ν falls below β(f) = 8 ln2 f / π² (it may lie below 1/T0: then the line is
+   * carrier-dominated); null when S_ν never exceeds β in the band, or is still above it at the top (truncated)
+   */
   crossingHz: number | null;
   areaHz2: number;
   /** √(8 ln2 · A) */

@@ -1,9 +1,9 @@
 /** /benches/:benchId — a bench's home: what it is, its lasers, and (for owners) its record. */
 import { useQueryClient, type QueryClient } from '@tanstack/react-query';
+import { useState } from 'react';
 import { useNavigate, useParams, type LoaderFunctionArgs } from 'react-router';
 import { PageHeader } from '../../components/layout/page-header';
-import { WorkArea } from '../../components/layout/work-area';
-import { ButtonLink } from '../../components/ui/button';
+import { Button, ButtonLink } from '../../components/ui/button';
 import { EmptyNote } from '../../components/ui/notes';
 import { Mono } from '../../components/ui/quantity';
 import { RoleTag } from '../../components/ui/role-tag';
@@ -40,6 +40,8 @@ export function BenchHomeRoute() {
   const navigate = useNavigate();
   const canWrite = bench.role === 'owner' || bench.role === 'analyst';
   const isOwner = bench.role === 'owner';
+  // an empty bench opens the form at once; otherwise it waits for "Add a laser"
+  const [adding, setAdding] = useState(canWrite && lasers.length === 0);
   // the bench list shows counts of lasers; keep it honest after a change here
   const refreshCounts = () => void queryClient.invalidateQueries({ queryKey: benchKeys.lists() });
 
@@ -63,53 +65,56 @@ export function BenchHomeRoute() {
         actions={<ButtonLink to={paths.benches.members.getHref(bench.id)}>Members</ButtonLink>}
       />
 
-      <WorkArea
+      <Section
+        id="lasers"
         className="mt-10"
-        main={
-        <Section
-          id="lasers"
-          title="Lasers"
-          lede="Devices under test on this bench, with their nominal wavelength and optical frequency."
-          aside={
+        title="Lasers"
+        lede={
+          canWrite
+            ? 'Devices under test on this bench, with their nominal wavelength and optical frequency.'
+            : 'Devices under test on this bench. As a viewer you read them; analysts and owners add and edit.'
+        }
+        aside={
+          <div className="flex items-center gap-5">
             <span className="text-sm text-ink-faint">
               <Mono>{lasers.length}</Mono> {lasers.length === 1 ? 'laser' : 'lasers'}
             </span>
-          }
-        >
-          {lasers.length === 0 ? (
-            <EmptyNote title="No lasers on this bench yet.">
-              {canWrite
-                ? 'Add the first device under test with the form beside this list: a name, its type and its nominal wavelength or optical frequency.'
-                : 'An analyst or owner adds lasers; they will appear here.'}
-            </EmptyNote>
-          ) : (
-            <LaserList benchId={bench.id} lasers={lasers} canWrite={canWrite} onChanged={refreshCounts} />
-          )}
-        </Section>
+            {canWrite && !adding && (
+              <Button variant="secondary" size="sm" onClick={() => setAdding(true)} aria-controls="add-laser-heading">
+                Add a laser
+              </Button>
+            )}
+          </div>
         }
-        side={
-          canWrite ? (
-            <Panel id="add-laser" title="Add a laser">
-              <LaserForm benchId={bench.id} onChanged={refreshCounts} />
-            </Panel>
-          ) : (
-            <Panel id="viewer-note" title="Reading this bench">
-              <p className="text-sm leading-relaxed text-ink-soft">
-                As a viewer you read everything here. Analysts and owners add and edit lasers.
-              </p>
-            </Panel>
-          )
-        }
-      />
+      >
+        {lasers.length === 0 ? (
+          <EmptyNote title="No lasers on this bench yet.">
+            {canWrite
+              ? 'Add the first device under test below: a name, its type and its nominal wavelength or optical frequency.'
+              : 'An analyst or owner adds lasers; they will appear here.'}
+          </EmptyNote>
+        ) : (
+          <LaserList benchId={bench.id} lasers={lasers} canWrite={canWrite} onChanged={refreshCounts} />
+        )}
+        {canWrite && adding && (
+          <Panel id="add-laser" title="Add a laser" className="mt-8">
+            <LaserForm
+              benchId={bench.id}
+              onChanged={refreshCounts}
+              onCancel={lasers.length > 0 ? () => setAdding(false) : undefined}
+            />
+          </Panel>
+        )}
+      </Section>
 
       {isOwner && (
-        <div className="mt-16 grid grid-cols-[minmax(0,1fr)_20rem] gap-14 border-t border-rule pt-10">
+        <div className="mt-16 grid grid-cols-[minmax(0,1fr)_20rem] gap-14">
           <Section id="bench-record" title="Bench record" lede="Only owners see this part.">
             <div className="max-w-[34rem]">
               <BenchRecordForm bench={bench} onSaved={refreshCounts} />
             </div>
           </Section>
-          <Section id="delete-bench" title="Delete">
+          <Section id="delete-bench" title="Delete" lede="For good, for everyone.">
             <DeleteBenchControl bench={bench} onDeleted={() => navigate(paths.benches.list.getHref(), { replace: true })} />
           </Section>
         </div>

@@ -1,13 +1,12 @@
 /** /benches/:benchId/members — who is on the bench, with their roles; owners add and change. */
 import { useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { useNavigate, useParams, type LoaderFunctionArgs } from 'react-router';
+import { BenchRole } from '../../../server/contracts/benches';
 import { PageHeader } from '../../components/layout/page-header';
-import { WorkArea } from '../../components/layout/work-area';
 import { Mono } from '../../components/ui/quantity';
 import { ROLE_DESCRIPTIONS, RoleTag } from '../../components/ui/role-tag';
 import { Panel, Section } from '../../components/ui/section';
 import { paths } from '../../config/paths';
-import { BenchRole } from '../../../server/contracts/benches';
 import { useSignedInUser } from '../../features/auth/api/get-me';
 import { benchQueryOptions, useBench } from '../../features/benches/api/get-bench';
 import { benchKeys } from '../../features/benches/api/keys';
@@ -48,55 +47,52 @@ export function BenchMembersRoute() {
         title="Members"
         lede={`Who can see and change “${bench.name}”.`}
       />
-      <WorkArea
+
+      <Section
+        id="members"
         className="mt-10"
-        main={
-        <Section
-          id="members"
-          title="People on this bench"
-          aside={
-            <span className="text-sm text-ink-faint">
-              <Mono>{members.length}</Mono> {members.length === 1 ? 'member' : 'members'}
-            </span>
-          }
-        >
-          <MemberList
-            benchId={bench.id}
-            benchName={bench.name}
-            members={members}
-            currentUserId={user.id}
-            canManage={isOwner}
-            onChanged={refreshBench}
-            onLeft={() => navigate(paths.benches.list.getHref(), { replace: true })}
-          />
-        </Section>
+        title="People on this bench"
+        aside={
+          <span className="text-sm text-ink-faint">
+            <Mono>{members.length}</Mono> {members.length === 1 ? 'member' : 'members'}
+          </span>
         }
-        side={
-          <>
-          {isOwner && (
-            <Panel id="add-member" title="Add a member">
-              <AddMemberForm benchId={bench.id} onChanged={refreshBench} />
-            </Panel>
-          )}
-          <section aria-labelledby="roles-heading" className="px-1">
-            <h2 id="roles-heading" className="text-sm font-semibold text-ink">
-              Roles
-            </h2>
-            <dl className="mt-3 grid grid-cols-3 gap-6 xl:grid-cols-1 xl:gap-3">
-              {BenchRole.options.map((r) => (
-                <div key={r}>
-                  <dt>
-                    <RoleTag role={r} />
-                  </dt>
-                  <dd className="mt-1 text-sm leading-relaxed text-ink-soft">{ROLE_DESCRIPTIONS[r]}</dd>
-                </div>
-              ))}
-            </dl>
-            {!isOwner && <p className="mt-4 text-sm text-ink-faint">Only owners add members or change roles.</p>}
-          </section>
-          </>
-        }
-      />
+      >
+        <MemberList
+          benchId={bench.id}
+          benchName={bench.name}
+          members={members}
+          currentUserId={user.id}
+          canManage={isOwner}
+          onChanged={refreshBench}
+          onLeft={() => navigate(paths.benches.list.getHref(), { replace: true })}
+        />
+      </Section>
+
+      <div className="mt-12 grid grid-cols-[minmax(0,1fr)_20rem] gap-14">
+        {isOwner ? (
+          <Panel id="add-member" title="Add a member">
+            <AddMemberForm benchId={bench.id} onChanged={refreshBench} />
+          </Panel>
+        ) : (
+          <p className="pt-1 text-sm text-ink-faint">Only owners add members or change roles. Ask one if someone is missing.</p>
+        )}
+        <section aria-labelledby="roles-heading">
+          <h2 id="roles-heading" className="text-sm font-semibold text-ink">
+            Roles
+          </h2>
+          <dl className="mt-3 flex flex-col gap-3">
+            {BenchRole.options.map((r) => (
+              <div key={r}>
+                <dt>
+                  <RoleTag role={r} />
+                </dt>
+                <dd className="mt-1 text-sm leading-relaxed text-ink-soft">{ROLE_DESCRIPTIONS[r]}</dd>
+              </div>
+            ))}
+          </dl>
+        </section>
+      </div>
     </>
   );
 }

@@ -28,26 +28,25 @@ export function BenchesRoute() {
       />
       <WorkArea
         className="mt-10"
-        sideBy="always"
         main={
-        <Section
-          id="bench-list"
-          title="Your benches"
-          aside={
-            <span className="text-sm text-ink-faint">
-              <Mono>{benches.length}</Mono> {benches.length === 1 ? 'bench' : 'benches'}
-            </span>
-          }
-        >
-          {benches.length === 0 ? (
-            <EmptyNote title="You are not on any bench yet.">
-              Start one with the form beside this list, or ask a bench owner to add you with the e-mail you signed up
-              with.
-            </EmptyNote>
-          ) : (
-            <BenchList benches={benches} hrefFor={paths.benches.home.getHref} />
-          )}
-        </Section>
+          <Section
+            id="bench-list"
+            title="Your benches"
+            aside={
+              <span className="text-sm text-ink-faint">
+                <Mono>{benches.length}</Mono> {benches.length === 1 ? 'bench' : 'benches'}
+              </span>
+            }
+          >
+            {benches.length === 0 ? (
+              <EmptyNote title="You are not on any bench yet.">
+                Start one with the form beside this list, or ask a bench owner to add you with the e-mail you signed up
+                with.
+              </EmptyNote>
+            ) : (
+              <BenchList benches={benches} hrefFor={paths.benches.home.getHref} />
+            )}
+          </Section>
         }
         side={
           <Panel id="start-bench" title="Start a bench">

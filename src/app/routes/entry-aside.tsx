@@ -2,7 +2,7 @@
 export function EntryAside() {
   const items: Array<[string, string]> = [
     ['Captures in', 'phase, IQ or beat-note records from the bench, as they came off the scope'],
-    ['Spectra out', 'frequency-noise PSD by Welch, the white floor and the β-separation line'],
+    ['Spectra out', 'frequency-noise PSD by Welch, the white floor and the β\u2011separation line'],
     ['Kept together', 'lasers, settings and results on a shared bench, with roles'],
   ];
   return (

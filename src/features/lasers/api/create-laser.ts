@@ -15,7 +15,8 @@ export function useCreateLaser(benchId: string, { onChanged }: { onChanged?: () 
     mutationFn: (body: CreateLaserRequest) => createLaser(benchId, body),
     onSuccess: () => {
       onChanged?.();
-      return queryClient.invalidateQueries({ queryKey: laserKeys.list(benchId) });
+      // not awaited: the form resets at once and stays ready for the next entry while the list refreshes
+      void queryClient.invalidateQueries({ queryKey: laserKeys.list(benchId) });
     },
   });
 }

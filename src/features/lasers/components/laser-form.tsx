@@ -8,7 +8,7 @@ import { CreateLaserRequest, LaserType, UpdateLaserRequest, type Laser } from '.
 import { Button } from '../../../components/ui/button';
 import { cn } from '../../../components/ui/cn';
 import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
-import { FormAlert } from '../../../components/ui/notes';
+import { DoneNote, FormAlert } from '../../../components/ui/notes';
 import { Quantity } from '../../../components/ui/quantity';
 import { errorsFromFailure, formNumber, formText, validateWith, type FieldErrors } from '../../../lib/form';
 import { formatFrequencyThz, formatWavelengthNm } from '../../../lib/units';
@@ -26,11 +26,6 @@ export interface LaserFormProps {
   benchId: string;
   /** the laser to edit; absent to add a new one */
   laser?: Laser;
-  /**
-   * 'panel' for the side column (one column from 1280 px, three below where the panel spans the
-   * page), 'wide' inside a table row (always three columns)
-   */
-  layout?: 'panel' | 'wide';
   onDone?: (laser: Laser) => void;
   onCancel?: () => void;
   /** after a change that alters the bench's counts */
@@ -41,7 +36,7 @@ function initialText(value: number | null | undefined): string {
   return value == null ? '' : String(value);
 }
 
-export function LaserForm({ benchId, laser, layout = 'panel', onDone, onCancel, onChanged }: LaserFormProps) {
+export function LaserForm({ benchId, laser, onDone, onCancel, onChanged }: LaserFormProps) {
   const editing = laser !== undefined;
   const createLaser = useCreateLaser(benchId, { onChanged });
   const updateLaser = useUpdateLaser(benchId, { onChanged });
@@ -55,6 +50,7 @@ export function LaserForm({ benchId, laser, layout = 'panel', onDone, onCancel, 
   );
   const [fieldErrors, setFieldErrors] = useState<FieldErrors>({});
   const [formError, setFormError] = useState<string | null>(null);
+  const [done, setDone] = useState<string | null>(null);
 
   const quantityField = givenAs === 'wavelength' ? 'wavelengthNm' : 'frequencyThz';
   const parsedQuantity = Number(quantityText.trim().replace(',', '.'));
@@ -81,6 +77,7 @@ export function LaserForm({ benchId, laser, layout = 'panel', onDone, onCancel, 
     const notes = formText(data, 'notes');
     const quantity = formNumber(data, 'quantity');
     setFormError(null);
+    setDone(null);
     if (quantity !== undefined && Number.isNaN(quantity)) {
       setFieldErrors({ [quantityField]: 'must be a number, e.g. 1550.12' });
       return;
@@ -97,6 +94,7 @@ export function LaserForm({ benchId, laser, layout = 'panel', onDone, onCancel, 
         if (!editing) {
           formRef.current?.reset();
           setQuantityText('');
+          setDone(`Added ${saved.name}.`);
         }
         onDone?.(saved);
       },
@@ -127,8 +125,6 @@ export function LaserForm({ benchId, laser, layout = 'panel', onDone, onCancel, 
     }
   }
 
-  const wide = layout === 'wide';
-  const span = wide ? 'col-span-3' : 'col-span-3 xl:col-span-1';
   const quantityError = fieldErrors.wavelengthNm ?? fieldErrors.frequencyThz;
 
   return (
@@ -137,10 +133,7 @@ export function LaserForm({ benchId, laser, layout = 'panel', onDone, onCancel, 
       noValidate
       onSubmit={onSubmit}
       aria-label={editing ? `Edit ${laser.name}` : 'Add a laser'}
-      className={cn(
-        'grid grid-cols-[minmax(0,1.2fr)_minmax(0,0.8fr)_minmax(0,1.1fr)] gap-x-6 gap-y-5',
-        !wide && 'xl:grid-cols-1',
-      )}
+      className="grid grid-cols-[minmax(0,1.2fr)_minmax(0,0.8fr)_minmax(0,1.1fr)] gap-x-6 gap-y-5"
     >
       <TextField
         label="Name"
@@ -218,23 +211,24 @@ export function LaserForm({ benchId, laser, layout = 'panel', onDone, onCancel, 
         label="Notes"
         name="notes"
         aside="optional"
-        rows={wide ? 2 : 3}
-        fieldClassName={span}
+        rows={2}
+        fieldClassName="col-span-3"
         defaultValue={laser?.notes ?? ''}
         error={fieldErrors.notes}
         placeholder={editing ? undefined : 'Drive current, temperature, isolator, fibre pigtail…'}
       />
 
-      <FormAlert message={formError} className={span} />
-      <div className={cn('flex items-center gap-3', span)}>
+      <FormAlert message={formError} className="col-span-3" />
+      <div className="col-span-3 flex items-center gap-3">
         <Button type="submit" busy={mutation.isPending} busyLabel="Saving…">
           {editing ? 'Save laser' : 'Add laser'}
         </Button>
         {onCancel && (
           <Button variant="secondary" onClick={onCancel} disabled={mutation.isPending}>
-            Cancel
+            {editing ? 'Cancel' : 'Close'}
           </Button>
         )}
+        <DoneNote message={done} className="ml-2" />
       </div>
     </form>
   );

@@ -52,7 +52,6 @@ export function LaserList({ benchId, lasers, canWrite, onChanged }: LaserListPro
                   <LaserForm
                     benchId={benchId}
                     laser={laser}
-                    layout="wide"
                     onChanged={onChanged}
                     onDone={() => setEditingId(null)}
                     onCancel={() => setEditingId(null)}

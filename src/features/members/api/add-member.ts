@@ -15,7 +15,8 @@ export function useAddMember(benchId: string, { onChanged }: { onChanged?: () =>
     mutationFn: (body: AddMemberRequest) => addMember(benchId, body),
     onSuccess: () => {
       onChanged?.();
-      return queryClient.invalidateQueries({ queryKey: memberKeys.list(benchId) });
+      // not awaited: the form resets at once and stays ready for the next entry while the list refreshes
+      void queryClient.invalidateQueries({ queryKey: memberKeys.list(benchId) });
     },
   });
 }

@@ -48,7 +48,7 @@ export function AddMemberForm({ benchId, onChanged }: { benchId: string; onChang
       ref={formRef}
       noValidate
       onSubmit={onSubmit}
-      className="grid grid-cols-2 gap-x-6 gap-y-5 xl:grid-cols-1"
+      className="grid grid-cols-2 gap-x-6 gap-y-5"
       aria-label="Add a member"
     >
       <TextField
@@ -69,8 +69,8 @@ export function AddMemberForm({ benchId, onChanged }: { benchId: string; onChang
         error={fieldErrors.role}
         hint={ROLE_DESCRIPTIONS[role]}
       />
-      <FormAlert message={formError} className="col-span-2 xl:col-span-1" />
-      <div className="col-span-2 flex items-center gap-4 xl:col-span-1">
+      <FormAlert message={formError} className="col-span-2" />
+      <div className="col-span-2 flex items-center gap-4">
         <Button type="submit" busy={addMember.isPending} busyLabel="Adding…">
           Add member
         </Button>

@@ -88,7 +88,7 @@ function MemberRow({ benchId, benchName, member, isSelf, canManage, onChanged, o
         {isSelf && <span className="ml-2 text-xs text-ink-faint">(you)</span>}
       </td>
       <td className="py-3.5 pr-4">
-        <Mono className="text-[0.8125rem] break-all text-ink-soft">{member.email}</Mono>
+        <Mono className="text-[0.8125rem] text-ink-soft">{member.email}</Mono>
       </td>
       <td className="py-3 pr-4">
         {canManage ? (

@@ -3,9 +3,12 @@
  *
  *   reader (io/: CSV | NPY | WAV | raw, format sniffed unless given)
  *     → frequency stage (phase/frequency-stage.ts: unwrap | analytic signal → ν in Hz)
- *     → Welch accumulator on the linear grid (spectrum/welch.ts: the stated window/segment/overlap)
- *       + log-frequency accumulator (spectrum/log-frequency.ts: 1/T0 … fs/2)
- *     → figures: noise model (noise/model-fit.ts), spurs on the linear grid (noise/spurs.ts),
+ *     → log-frequency accumulator (spectrum/log-frequency.ts): a cascade of decimate-by-2 stages, each
+ *       a Welch accumulator with the stated window, segment L and overlap; its stage 0 is the plain
+ *       Welch estimate at full rate, the deeper stages reach down to about 1/T0. One pass serves both:
+ *       the stitched spectrum (every Welch bin, from the finest stage serving it) and, binned to 30
+ *       points per decade, the log view the figures are read from.
+ *     → figures: noise model (noise/model-fit.ts), spurs on the stitched spectrum (noise/spurs.ts),
  *       white floor and intrinsic linewidth π·S_ν,white (linewidth/white-floor.ts),
  *       β-separation-line linewidth (linewidth/beta-line.ts), lineshape FWHM (linewidth/lineshape.ts).
  * The same code serves the CLI (node fs stream), the worker thread and the tests. Memory is bounded:
@@ -34,9 +37,10 @@ import { whiteFloor } from './linewidth/white-floor';
 import { fitNoiseModel } from './noise/model-fit';
 import { findSpurs } from './noise/spurs';
 import { createFrequencyStage } from './phase/frequency-stage';
+import { equivalentAverages } from './spectrum/equivalent-averages';
+import { logBinSpectrum } from './spectrum/log-binning';
 import { createLogFrequencyAccumulator } from './spectrum/log-frequency';
-import { createWelchAccumulator } from './spectrum/welch';
-import { WINDOW_NAMES } from './spectrum/windows';
+import { WINDOW_NAMES, makeWindow, windowSums } from './spectrum/windows';
 import type {
   BetaLineResult,
   ByteOrder,
@@ -53,7 +57,6 @@ import type {
   SampleBlock,
   Spur,
   StreamingReader,
-  WelchSpectrum,
   WhiteFloorResult,
   WindowName,
 } from './types';
@@ -140,7 +143,9 @@ export interface CaptureAnalysis {
   report: AnalysisReport;
   readerInfo: ReaderInfo;
   frequencyStage: FrequencyStageSummary;
-  welch: WelchSpectrum;
+  /** every Welch bin of the cascade, each from the finest stage that serves it (stage 0 = full rate) */
+  spectrum: LogFrequencySpectrum;
+  /** the same binned to LOG_POINTS_PER_DECADE (averages summed over the merged bins) */
   logSpectrum: LogFrequencySpectrum;
   whiteFloor: WhiteFloorResult;
   betaLine: BetaLineResult;
@@ -156,8 +161,8 @@ export const DEFAULT_OVERLAP = 0.5;
 export const MIN_SEGMENT = 64;
 export const MAX_SEGMENT = 2 ** 24;
 const DETREND: DetrendName = 'linear';
-/** the log-frequency view uses segments of at most this length at every stage */
-const LOG_SEGMENT = 4096;
+/** points per decade of the log view the figures are read from */
+export const LOG_POINTS_PER_DECADE = 30;
 /**
  * The automatic white-floor search starts at the first log-frequency point averaged over at least
  * this many segments: with fewer, single points scatter by more than −2.3/+3.2 dB (METHODS 1.3,
@@ -303,7 +308,6 @@ export async function analyzeCapture(source: CaptureSource, options: AnalyzeOpti
 
   let settings: CaptureSettings | undefined;
   let stage: ReturnType<typeof createFrequencyStage> | undefined;
-  let welchAcc: ReturnType<typeof createWelchAccumulator> | undefined;
   let logAcc: ReturnType<typeof createLogFrequencyAccumulator> | undefined;
   let inputSamples = 0;
 
@@ -331,28 +335,18 @@ export async function analyzeCapture(source: CaptureSource, options: AnalyzeOpti
           (totalBytes !== undefined && bytesIn > 0 ? (totalBytes * reader!.samplesOut) / bytesIn : undefined);
         settings = resolveCapture(o, info, estimate, warnings);
         stage = createFrequencyStage({ kind: settings.kind, sampleRateHz: settings.sampleRateHz });
-        const rate = stage.outputRateHz;
-        welchAcc = createWelchAccumulator({
-          sampleRateHz: rate,
+        logAcc = createLogFrequencyAccumulator({
+          sampleRateHz: stage.outputRateHz,
           segmentLength: settings.segment,
           window: o.window,
           overlap: o.overlap,
           detrend: DETREND,
-        });
-        logAcc = createLogFrequencyAccumulator({
-          sampleRateHz: rate,
-          segmentLength: Math.min(settings.segment, LOG_SEGMENT),
-          window: o.window,
-          overlap: o.overlap,
-          detrend: DETREND,
+          pointsPerDecade: 0,
         });
       }
       inputSamples += block.channels[0].length;
       const nu = stage.push(block);
-      if (nu.length > 0) {
-        welchAcc!.push(nu);
-        logAcc!.push(nu);
-      }
+      if (nu.length > 0) logAcc!.push(nu);
     }
   };
 
@@ -386,27 +380,29 @@ export async function analyzeCapture(source: CaptureSource, options: AnalyzeOpti
   }
   consume(reader.end());
   const info = reader.info;
-  if (!stage || !settings || !welchAcc || !logAcc || !info) {
+  if (!stage || !settings || !logAcc || !info) {
     throw new AnalysisInputError('the file holds no samples', 'byte offset 0');
   }
   const { tail, summary } = stage.finish();
-  if (tail.length > 0) {
-    welchAcc.push(tail);
-    logAcc.push(tail);
-  }
+  if (tail.length > 0) logAcc.push(tail);
 
   progress(READ_SHARE, 'spectrum');
   const L = settings.segment;
-  if (welchAcc.segments < 2) {
-    const hop = welchAcc.options.hop;
+  const hop = logAcc.options.welch.hop;
+  const n = summary.frequencySamples;
+  // segments of the full-rate stage: K = ⌊(n − L)/D⌋ + 1
+  const averages = n >= L ? Math.floor((n - L) / hop) + 1 : 0;
+  if (averages < 2) {
     throw new AnalysisInputError(
-      `the record is too short for two segments: ${summary.frequencySamples} frequency samples, ` +
+      `the record is too short for two segments: ${n} frequency samples, ` +
         `a segment of ${L} with overlap ${o.overlap} needs at least ${L + hop}; choose a shorter segment`,
       `${inputSamples} samples`,
     );
   }
-  const welch = welchAcc.result();
-  const logSpectrum = logAcc.result();
+  const spectrum = logAcc.result();
+  const logSpectrum = logBinned(spectrum, LOG_POINTS_PER_DECADE);
+  const window = makeWindow(o.window, L);
+  const { s1, s2 } = windowSums(window);
 
   progress(READ_SHARE + 0.05, 'figures');
   const fs = settings.sampleRateHz;
@@ -414,10 +410,13 @@ export async function analyzeCapture(source: CaptureSource, options: AnalyzeOpti
   const T0 = o.observationTimeS ?? durationS;
   // a beat note is trusted up to about half the demodulator's pass band (METHODS 2.2)
   const trustedTopHz = summary.bandwidthHz !== undefined ? summary.bandwidthHz / 2 : undefined;
-  const band: [number, number] | undefined = trustedTopHz !== undefined ? [logSpectrum.frequencyHz[0] || 1e-12, trustedTopHz] : undefined;
-
-  const noiseModel = fitNoiseModel(logSpectrum, band ? { bandHz: band } : {});
-  const spurs = findSpurs(welch, noiseModel, band ? { bandHz: band } : {});
+  const f = logSpectrum.frequencyHz;
+  const topHz = trustedTopHz ?? f[f.length - 1];
+  // the model is fitted where the log view is reliable (K ≥ 2, bin ≥ 4): the few points below come
+  // from the deepest stage's first bins, biased low by the per-segment detrend (METHODS 1.4)
+  const modelLowHz = Math.min(logSpectrum.reliableFromHz, topHz / 10);
+  const noiseModel = fitNoiseModel(logSpectrum, { bandHz: [modelLowHz, topHz] });
+  const spurs = findSpurs(spectrum, noiseModel, { bandHz: [modelLowHz, topHz] });
   // the automatic floor search starts where every log point rests on ≥ 10 averages
   let firstSteady = 0;
   while (firstSteady < logSpectrum.averages.length - 1 && logSpectrum.averages[firstSteady] < FLOOR_MIN_AVERAGES) firstSteady++;
@@ -451,9 +450,9 @@ export async function analyzeCapture(source: CaptureSource, options: AnalyzeOpti
       window: o.window,
       segment: L,
       overlap: o.overlap,
-      averages: welch.averages,
-      equivalentAverages: welch.equivalentAverages,
-      enbwHz: welch.enbwHz,
+      averages,
+      equivalentAverages: equivalentAverages(window, hop, averages),
+      enbwHz: (stage.outputRateHz * s2) / (s1 * s1), // ENBW = fs·Σw²/(Σw)²
       detrend: DETREND,
       frequencyRateHz: stage.outputRateHz,
     },
@@ -477,10 +476,9 @@ export async function analyzeCapture(source: CaptureSource, options: AnalyzeOpti
     warnings,
   };
   if (o.series) {
-    // every bin above DC: the one-sided S_ν on the linear Welch grid
     report.spectrum = {
-      frequencyHz: toArray(welch.frequencyHz.subarray(1)),
-      frequencyNoiseHz2PerHz: toArray(welch.psd.subarray(1)),
+      frequencyHz: toArray(spectrum.frequencyHz),
+      frequencyNoiseHz2PerHz: toArray(spectrum.psd),
     };
     report.logSpectrum = {
       frequencyHz: toArray(logSpectrum.frequencyHz),
@@ -493,7 +491,7 @@ export async function analyzeCapture(source: CaptureSource, options: AnalyzeOpti
     report,
     readerInfo: info,
     frequencyStage: summary,
-    welch,
+    spectrum,
     logSpectrum,
     whiteFloor: floor,
     betaLine: beta,
@@ -501,6 +499,25 @@ export async function analyzeCapture(source: CaptureSource, options: AnalyzeOpti
     noiseModel,
     spurs,
   };
+}
+
+/** Geometric bins of a stitched spectrum (mean of linear values); averages and resolutions summed. */
+function logBinned(s: LogFrequencySpectrum, pointsPerDecade: number): LogFrequencySpectrum {
+  const binned = logBinSpectrum(s, { pointsPerDecade });
+  const m = binned.counts.length;
+  const averages = new Float64Array(m);
+  const resolutionHz = new Float64Array(m);
+  const stage = new Uint8Array(m);
+  let i = 0;
+  while (i < s.frequencyHz.length && !(s.frequencyHz[i] > 0)) i++;
+  for (let j = 0; j < m; j++) {
+    stage[j] = s.stage[i];
+    for (let c = 0; c < binned.counts[j]; c++, i++) {
+      averages[j] += s.averages[i];
+      resolutionHz[j] += s.resolutionHz[i];
+    }
+  }
+  return { ...s, frequencyHz: binned.frequencyHz, psd: binned.psd, averages, resolutionHz, stage };
 }
 
 function concat(parts: Uint8Array[]): Uint8Array {

@@ -37,6 +37,8 @@ export class FrameDecoder {
   private carryLength = 0;
   /** an aligned copy of misaligned input, reused between calls */
   private scratch = new ArrayBuffer(0);
+  /** Σ (x − x) over the last block: 0 when every value is finite, NaN otherwise */
+  private check = 0;
 
   constructor(private readonly layout: FrameLayout) {
     this.elementBytes = ELEMENT_BYTES[layout.element];
@@ -49,8 +51,14 @@ export class FrameDecoder {
     return this.carryLength;
   }
 
+  /** True when the last block returned by decode() holds a NaN or ±Inf (then see firstNonFinite). */
+  get lastBlockNonFinite(): boolean {
+    return this.check !== 0;
+  }
+
   /** Decodes every complete frame in `bytes` (after any carried bytes); returns null when none completed. */
   decode(bytes: Uint8Array): SampleBlock | null {
+    this.check = 0;
     let start = 0;
     let carriedFrame = 0;
     if (this.carryLength > 0) {
@@ -105,16 +113,26 @@ export class FrameDecoder {
           : element === 'int16'
             ? new Int16Array(buffer, offset, count)
             : new Int32Array(buffer, offset, count);
-    if (this.layout.channels === 1) {
-      out[0].set(view, at);
-      return;
-    }
+    // copy out, summing x − x on the way (0 for finite values, NaN once any value is NaN or ±Inf)
+    let check = 0;
     const a = out[0];
-    const b = out[1];
-    for (let i = 0, j = 0; i < frames; i++, j += 2) {
-      a[at + i] = view[j];
-      b[at + i] = view[j + 1];
+    if (this.layout.channels === 1) {
+      for (let i = 0; i < frames; i++) {
+        const v = view[i];
+        a[at + i] = v;
+        check += v - v;
+      }
+    } else {
+      const b = out[1];
+      for (let i = 0, j = 0; i < frames; i++, j += 2) {
+        const v = view[j];
+        const w = view[j + 1];
+        a[at + i] = v;
+        b[at + i] = w;
+        check += v - v + (w - w);
+      }
     }
+    this.check += check;
   }
 
   private decodeWithView(bytes: Uint8Array, start: number, frames: number, out: Float64Array[], at: number): void {
@@ -149,6 +167,7 @@ export class FrameDecoder {
           }
         }
         out[c][at + i] = v;
+        this.check += v - v;
         p += eb;
       }
     }
@@ -157,12 +176,15 @@ export class FrameDecoder {
 
 /** Index of the first frame of `block` holding NaN or ±Inf in any channel, or -1 when all are finite. */
 export function firstNonFinite(block: SampleBlock): number {
+  // fast pass: x − x is 0 for finite x and NaN for NaN and ±Inf, and NaN survives the sum
+  let check = 0;
+  for (const ch of block.channels) {
+    for (let i = 0; i < ch.length; i++) check += ch[i] - ch[i];
+  }
+  if (check === 0) return -1;
   const n = block.channels[0].length;
-  const a = block.channels[0];
-  const b = block.channels.length > 1 ? block.channels[1] : a;
   for (let i = 0; i < n; i++) {
-    // x - x is 0 for finite x and NaN for NaN and ±Inf
-    if (a[i] - a[i] !== 0 || b[i] - b[i] !== 0) return i;
+    for (const ch of block.channels) if (!Number.isFinite(ch[i])) return i;
   }
   return -1;
 }

@@ -114,7 +114,7 @@ export class NpyReader implements StreamingReader {
     this.dataBytesIn += data.length;
     const block = this.decoder!.decode(data);
     if (!block) return [];
-    const bad = firstNonFinite(block);
+    const bad = this.decoder!.lastBlockNonFinite ? firstNonFinite(block) : -1;
     if (bad >= 0) {
       const frame = this.frames + bad;
       throw new AnalysisInputError(

@@ -50,7 +50,7 @@ export class RawReader implements StreamingReader {
     this.bytesIn += chunk.length;
     const block = this.decoder.decode(chunk);
     if (!block) return [];
-    const bad = firstNonFinite(block);
+    const bad = this.decoder.lastBlockNonFinite ? firstNonFinite(block) : -1;
     if (bad >= 0) {
       const frame = this.frames + bad;
       throw new AnalysisInputError(

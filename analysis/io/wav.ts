@@ -131,7 +131,7 @@ export class WavReader implements StreamingReader {
           this.remaining -= take;
           p += take;
           if (block) {
-            const bad = firstNonFinite(block);
+            const bad = this.decoder!.lastBlockNonFinite ? firstNonFinite(block) : -1;
             if (bad >= 0) {
               const frame = this.frames + bad;
               throw new AnalysisInputError(

@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { AnalysisInputError } from '../../analysis/errors';
 import { lineshape } from '../../analysis/linewidth/lineshape';
 import fixture from '../fixtures/linewidth/lineshape-bump.json';
-import { logSpectrum } from '../fixtures/linewidth/spectra';
+import { linearSpectrum, logSpectrum } from '../fixtures/linewidth/spectra';
 
 const rel = (a: number, b: number) => Math.abs(a / b - 1);
 
@@ -133,6 +133,16 @@ describe('lineshape against a scipy reference (tests/fixtures/linewidth/make-lin
     );
     const r = lineshape(s, { observationTimeS: fixture.observationTimeS, tailLevelHz2PerHz: fixture.whiteHz2PerHz });
     expect(rel(r.fwhmHz as number, fixture.fwhmHz)).toBeLessThan(3e-4);
+  });
+});
+
+describe('lineshape on a long linear Welch grid', () => {
+  it('averages 65536 bins onto log bins, says so, and still gives 197337 Hz for S = 1e3 + 1e9/f, T0 = 10 ms (METHODS 3.3, 1e-3)', () => {
+    // fs = 1 MHz, L = 2^17: 7.63 Hz bins up to 500 kHz
+    const s = linearSpectrum(1e6 / 131072, 1, 65536, (f) => 1e3 + 1e9 / f);
+    const r = lineshape(s, { observationTimeS: 1e-2, tailLevelHz2PerHz: 1e3 });
+    expect(rel(r.fwhmHz as number, 197337)).toBeLessThan(1e-3);
+    expect(r.warnings.join(' ')).toMatch(/averaged onto 1000 log bins per decade/);
   });
 });
 

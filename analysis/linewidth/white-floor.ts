@@ -26,7 +26,8 @@
  *  5. Among white-dominated windows the lowest-level ones win (mean S within 0.3 % + 2 standard errors
  *     of the lowest: white noise is the floor under bumps, spurs and the f² detection rise); the
  *     flattest of them, grown over the contiguous near-lowest white-dominated windows around it, is
- *     the band. If no window qualifies, the flattest window is used and a warning says so.
+ *     the band. If no window qualifies, the flattest window is used and a warning says so; a band
+ *     still leaning by more than 0.1 in log-log slope is reported with a warning (flicker adds ≈ |slope|).
  * Worked check: S_ν = 10⁴ Hz²/Hz everywhere → floor 10⁴, intrinsic linewidth 31415.93 Hz.
  */
 

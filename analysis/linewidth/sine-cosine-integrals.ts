@@ -78,7 +78,7 @@ export function sineCosineIntegrals(x: number, out: SineCosineIntegrals): SineCo
   }
   // E₁(ix) by the continued fraction, modified Lentz (b = 1 + ix, ...)
   let bRe = 1;
-  let bIm = x;
+  const bIm = x;
   // c = 1/FPMIN, d = h = 1/b
   let cRe = 1e300;
   let cIm = 0;

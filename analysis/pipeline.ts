@@ -19,7 +19,7 @@
  * Defaults: window 'hann'; overlap 0.5; segment the largest power of two ≤ N/8 within [256, 65536]
  * (4096 when the record length cannot be estimated); per-segment linear detrend (removes the carrier
  * offset and a drift, METHODS 1.4 and 2.3); observation time T0 = the record length; white-floor band
- * found automatically above the first log-frequency point with ≥ 10 averages; spectra in the report
+ * found automatically above the first log-frequency point with ≥ 100 averages; spectra in the report
  * only with `series`.
  * Kind: given, or two channels → 'iq', or a CSV column name (phase, frequency, beat); otherwise the
  * kind must be given. Sample rate: given (wins, with a warning when the file states another), or
@@ -168,7 +168,7 @@ export const LOG_POINTS_PER_DECADE = 30;
  * this many segments: with fewer, single points scatter by more than −2.3/+3.2 dB (METHODS 1.3,
  * K_eff = 10) and a search for the lowest flat band is drawn to downward fluctuations.
  */
-const FLOOR_MIN_AVERAGES = 10;
+const FLOOR_MIN_AVERAGES = 100;
 /** share of the progress bar for reading (the rest: spectra, then figures) */
 const READ_SHARE = 0.9;
 
@@ -417,16 +417,18 @@ export async function analyzeCapture(source: CaptureSource, options: AnalyzeOpti
   const modelLowHz = Math.min(logSpectrum.reliableFromHz, topHz / 10);
   const noiseModel = fitNoiseModel(logSpectrum, { bandHz: [modelLowHz, topHz] });
   const spurs = findSpurs(spectrum, noiseModel, { bandHz: [modelLowHz, topHz] });
-  // the automatic floor search starts where every log point rests on ≥ 10 averages
+  // the automatic floor search starts where every log point rests on ≥ FLOOR_MIN_AVERAGES segments,
+  // but leaves at least a decade below the search's top (top/5)
   let firstSteady = 0;
-  while (firstSteady < logSpectrum.averages.length - 1 && logSpectrum.averages[firstSteady] < FLOOR_MIN_AVERAGES) firstSteady++;
+  while (firstSteady < f.length - 1 && logSpectrum.averages[firstSteady] < FLOOR_MIN_AVERAGES) firstSteady++;
+  const floorMinHz = Math.max(logSpectrum.reliableFromHz, Math.min(f[firstSteady], topHz / 50));
   const floor = whiteFloor(
     logSpectrum,
     o.floorBandHz !== undefined
       ? { bandHz: o.floorBandHz, spurs }
       : {
           spurs,
-          minHz: Math.max(logSpectrum.reliableFromHz, logSpectrum.frequencyHz[firstSteady]),
+          minHz: floorMinHz,
           ...(trustedTopHz !== undefined ? { maxHz: trustedTopHz / 5 } : {}),
         },
   );

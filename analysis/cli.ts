@@ -213,6 +213,25 @@ async function main(argv: string[]): Promise<number> {
   }
 }
 
+/** option names of the analysis API -> the CLI's flags, for error messages */
+const FLAGS: Record<string, string> = {
+  kind: '--kind',
+  format: '--format',
+  sampleRateHz: '--sample-rate',
+  dtype: '--dtype',
+  channels: '--channels',
+  byteOrder: '--byte-order',
+  window: '--window',
+  segment: '--segment',
+  overlap: '--overlap',
+  observationTimeS: '--observation-time',
+  floorBandHz: '--floor-band',
+};
+
+function cliWording(message: string): string {
+  return message.replace(/\boption (\w+)/g, (m, name: string) => (FLAGS[name] ? `option ${FLAGS[name]}` : m));
+}
+
 main(process.argv.slice(2)).then(
   (status) => {
     process.exitCode = status;
@@ -220,7 +239,7 @@ main(process.argv.slice(2)).then(
   (e: unknown) => {
     if (process.stderr.isTTY) process.stderr.write('\r\x1b[K');
     const message = e instanceof Error ? e.message : String(e);
-    const oneLine = message.replace(/\s*\n\s*/g, ' ');
+    const oneLine = cliWording(message.replace(/\s*\n\s*/g, ' '));
     if (isAnalysisInputError(e)) {
       process.stderr.write(`error: ${oneLine}\n`);
       process.exitCode = 2;

@@ -35,6 +35,22 @@ export const paths = {
       path: '/benches/:benchId/members',
       getHref: (benchId: string) => `/benches/${seg(benchId)}/members`,
     },
+    /** add a capture; `laserId` preselects the laser */
+    upload: {
+      path: '/benches/:benchId/captures/new',
+      getHref: (benchId: string, laserId?: string) =>
+        `/benches/${seg(benchId)}/captures/new${laserId ? `?laser=${encodeURIComponent(laserId)}` : ''}`,
+    },
+    /** one analysis of a capture: its spectrum, figures and settings */
+    spectrum: {
+      path: '/benches/:benchId/spectra/:analysisId',
+      getHref: (benchId: string, analysisId: string) => `/benches/${seg(benchId)}/spectra/${seg(analysisId)}`,
+    },
+    /** a laser and its spectra over time */
+    laser: {
+      path: '/benches/:benchId/lasers/:laserId',
+      getHref: (benchId: string, laserId: string) => `/benches/${seg(benchId)}/lasers/${seg(laserId)}`,
+    },
   },
   account: { path: '/account', getHref: () => '/account' },
 } as const;

@@ -169,12 +169,12 @@ function mapErrors(errors: FieldErrors): Partial<Record<keyof FormState, string>
   return out;
 }
 
-function Fieldset({ legend, lede, children }: { legend: string; lede?: ReactNode; children: ReactNode }) {
+function Fieldset({ legend, lede, columns = 2, children }: { legend: string; lede?: ReactNode; columns?: 2 | 3; children: ReactNode }) {
   return (
     <fieldset className="border-t border-rule pt-5">
       <legend className="pr-3 text-xs font-semibold tracking-[0.08em] text-ink-soft uppercase">{legend}</legend>
       {lede && <p className="-mt-1 mb-4 text-sm text-ink-faint">{lede}</p>}
-      <div className="grid grid-cols-2 gap-x-6 gap-y-4">{children}</div>
+      <div className={columns === 3 ? 'grid grid-cols-3 gap-x-5 gap-y-4' : 'grid grid-cols-2 gap-x-6 gap-y-4'}>{children}</div>
     </fieldset>
   );
 }
@@ -387,7 +387,7 @@ export function CaptureUpload({ benchId, lasers, defaultLaserId, onAnalysed }: C
             )}
           </Fieldset>
 
-          <Fieldset legend="Operating point">
+          <Fieldset legend="Operating point" columns={3}>
             <TextField label="Drive current" unit="mA" inputMode="decimal" {...bind('driveCurrentMa')} disabled={busy || started} />
             <TextField label="Temperature" unit="°C" inputMode="decimal" {...bind('temperatureC')} disabled={busy || started} />
             <TextField label="Output power" unit="mW" inputMode="decimal" {...bind('outputPowerMw')} disabled={busy || started} />

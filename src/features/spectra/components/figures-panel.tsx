@@ -41,7 +41,7 @@ const band = (b: readonly [number, number]) => `${hz(b[0]).text} – ${hz(b[1]).
 function Block({ label, testId, children, className }: { label: ReactNode; testId?: string; children: ReactNode; className?: string }) {
   return (
     <section className={cn('min-w-0 border-t border-rule pt-4', className)} data-testid={testId}>
-      <h3 className="text-xs font-semibold tracking-[0.08em] text-ink-soft uppercase">{label}</h3>
+      <h3 className="text-sm font-semibold text-ink-soft">{label}</h3>
       <div className="mt-2">{children}</div>
     </section>
   );
@@ -81,7 +81,7 @@ export function FiguresPanel({
   return (
     <div className="grid grid-cols-2 gap-x-10 gap-y-7" data-testid="figures-panel">
       <Block label="Intrinsic linewidth" testId="figure-intrinsic">
-        <Big value={r.intrinsicLinewidthHz} testId="intrinsic-linewidth" title="Lorentzian FWHM π·S_ν,white" />
+        <Big value={r.intrinsicLinewidthHz} testId="intrinsic-linewidth" title="Lorentzian FWHM π·Sν,white" />
         <From>
           π × white floor{' '}
           <Mono className="text-ink-soft">{formatScientific(r.floorHz2PerHz ?? Number.NaN, 'Hz²/Hz', 3).text}</Mono>
@@ -117,7 +117,7 @@ export function FiguresPanel({
       </Block>
 
       <Block label="Integrated linewidth · β-line" testId="figure-beta">
-        <Big value={r.beta.linewidthHz} testId="beta-linewidth" title="√(8 ln2 · A), A = area of S_ν above β(f) from 1/T₀" />
+        <Big value={r.beta.linewidthHz} testId="beta-linewidth" title="√(8 ln2 · A), A = area of S<sub>ν</sub> above β(f) from 1/T₀" />
         <form
           className="mt-2 flex flex-wrap items-center gap-2 text-xs text-ink-faint"
           onSubmit={(e) => {
@@ -147,7 +147,7 @@ export function FiguresPanel({
           )}
         </form>
         <From>
-          area of S_ν above β(f) = 8 ln2·f/π² from 1/T₀ ={' '}
+          area of S<sub>ν</sub> above β(f) = 8 ln2·f/π² from 1/T₀ ={' '}
           <Mono className="text-ink-soft">{hz(1 / t0).text}</Mono>
           {r.beta.areaHz2 !== null && (
             <>
@@ -156,7 +156,7 @@ export function FiguresPanel({
           )}
           {r.beta.crossingHz !== null && (
             <>
-              ; S_ν crosses β at <Mono className="text-ink-soft">{hz(r.beta.crossingHz).text}</Mono>
+              ; S<sub>ν</sub> crosses β at <Mono className="text-ink-soft">{hz(r.beta.crossingHz).text}</Mono>
             </>
           )}
           . Di Domenico, Schilt &amp; Thomann, Appl. Opt. 49, 4801 (2010).
@@ -169,7 +169,7 @@ export function FiguresPanel({
             <Big value={r.fwhmHz} testId="lineshape-fwhm" />
             <From>
               {r.fwhmHz === null ? 'No FWHM: at this T₀ the line is a coherent carrier on a pedestal. ' : ''}
-              The line computed from the whole S_ν above 1/T₀ (Elliott, Roy &amp; Smith, Phys. Rev. A 26, 12, 1982).
+              The line computed from the whole S<sub>ν</sub> above 1/T₀ (Elliott, Roy &amp; Smith, Phys. Rev. A 26, 12, 1982).
             </From>
           </div>
         </div>
@@ -177,7 +177,7 @@ export function FiguresPanel({
           {lineshape === 'computing' ? (
             <p className="text-xs text-ink-faint">Drawing the line…</p>
           ) : lineshape && lineshape.offsetHz.length > 1 ? (
-            <LineshapePlot offsetHz={lineshape.offsetHz} power={lineshape.power} fwhmHz={r.fwhmHz ?? lineshape.fwhmHz} width={300} height={140} label="Lineshape computed from the displayed S_ν, FWHM marked" />
+            <LineshapePlot offsetHz={lineshape.offsetHz} power={lineshape.power} fwhmHz={r.fwhmHz ?? lineshape.fwhmHz} width={300} height={140} label="Lineshape computed from the displayed Sν, FWHM marked" />
           ) : null}
         </div>
       </Block>

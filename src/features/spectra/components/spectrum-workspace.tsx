@@ -25,6 +25,8 @@ import { readResult } from './result-fields';
 import { SettingsPanel } from './settings-panel';
 import { ViewSwitch } from './view-switch';
 
+const WINDOW_NAMES: Record<string, string> = { hann: 'Hann', 'blackman-harris': 'Blackman–Harris', 'flat-top': 'flat-top' };
+
 export interface SpectrumWorkspaceProps {
   analysisId: string;
   /** analysts and owners run analyses */
@@ -144,7 +146,7 @@ function DoneWorkspace({ analysis, canWrite, context, onOpenAnalysis }: Omit<Spe
               Figures
             </h2>
             <p className="text-xs text-ink-faint" data-testid="figures-settings">
-              {s.window} · <Mono>{s.segment.toLocaleString('en-GB')}</Mono>-sample segments · <Mono>{formatFixed(s.overlap * 100, '%', 0).text}</Mono> overlap ·{' '}
+              {WINDOW_NAMES[s.window] ?? s.window} window · <Mono>{s.segment.toLocaleString('en-GB')}</Mono>-sample segments · <Mono>{formatFixed(s.overlap * 100, '%', 0).text}</Mono> overlap ·{' '}
               <Mono>{s.averages.toLocaleString('en-GB')}</Mono> averages · T₀ <Mono>{formatSI(t0, 's').text}</Mono>
             </p>
           </div>

@@ -11,11 +11,14 @@ import { AppLayout, appLayoutLoader } from './routes/app-layout';
 import { benchHomeHandle, benchHomeLoader, BenchHomeRoute } from './routes/bench-home';
 import { benchMembersLoader, BenchMembersRoute } from './routes/bench-members';
 import { benchesLoader, BenchesRoute } from './routes/benches';
+import { captureUploadHandle, captureUploadLoader, CaptureUploadRoute } from './routes/capture-upload';
+import { laserLoader, LaserRoute } from './routes/laser';
 import { NotFoundRoute } from './routes/not-found';
 import { RootHydrateFallback, RootLayout } from './routes/root-layout';
 import { RootError, RouteError } from './routes/route-error';
 import { signInLoader, SignInRoute } from './routes/sign-in';
 import { signUpLoader, SignUpRoute } from './routes/sign-up';
+import { spectrumHandle, spectrumLoader, SpectrumRoute } from './routes/spectrum';
 
 export function createAppRouter(queryClient: QueryClient) {
   return createBrowserRouter([
@@ -48,6 +51,21 @@ export function createAppRouter(queryClient: QueryClient) {
               Component: BenchMembersRoute,
               ErrorBoundary: RouteError,
             },
+            {
+              path: paths.benches.upload.path,
+              loader: captureUploadLoader(queryClient),
+              Component: CaptureUploadRoute,
+              ErrorBoundary: RouteError,
+              handle: captureUploadHandle,
+            },
+            {
+              path: paths.benches.spectrum.path,
+              loader: spectrumLoader(queryClient),
+              Component: SpectrumRoute,
+              ErrorBoundary: RouteError,
+              handle: spectrumHandle,
+            },
+            { path: paths.benches.laser.path, loader: laserLoader(queryClient), Component: LaserRoute, ErrorBoundary: RouteError },
             { path: paths.account.path, loader: accountLoader(queryClient), Component: AccountRoute, ErrorBoundary: RouteError },
           ],
         },

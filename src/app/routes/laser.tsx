@@ -53,7 +53,7 @@ export function LaserRoute() {
         }
         actions={
           canWrite ? (
-            <ButtonLink to={`${paths.benches.upload.getHref(bench.id)}?laser=${encodeURIComponent(laser.id)}`} variant="primary">
+            <ButtonLink to={paths.benches.upload.getHref(bench.id, laser.id)} variant="primary">
               Upload a capture
             </ButtonLink>
           ) : undefined

@@ -114,6 +114,16 @@ export async function findCaptureWithNames(db: Knex, captureId: string): Promise
   return withNames(db).where('c.id', captureId).first();
 }
 
+export async function findCaptureByFileName(db: Knex, benchId: string, fileName: string): Promise<CaptureRowWithNames | undefined> {
+  return withNames(db)
+    .where({ 'c.bench_id': benchId, 'c.file_name': fileName })
+    .orderBy([
+      { column: 'c.created_at', order: 'asc' },
+      { column: 'c.id', order: 'asc' },
+    ])
+    .first();
+}
+
 /** The earliest capture on the bench with these bytes, if any. */
 export async function findFirstWithSha256(db: Knex, benchId: string, sha256: string): Promise<string | null> {
   const row = (await db('captures')

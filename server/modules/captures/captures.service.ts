@@ -35,6 +35,7 @@ import {
 } from './capture-policy';
 import {
   deleteCapture,
+  findCaptureByFileName,
   findCaptureForUser,
   findCaptureWithNames,
   findFirstWithSha256,
@@ -206,6 +207,13 @@ export function createCapturesService(deps: CapturesServiceDeps) {
       assertCaptureAction(access, 'captures.write');
       const received = await receiveIntoStorage(storage, createReadStream(filePath), fileName);
       return create(access, received, fields);
+    },
+
+    /** The earliest capture on the bench with this file name, or null (the demo seed stays idempotent with it). */
+    async findByFileName(access: BenchAccess, fileName: string): Promise<Capture | null> {
+      assertCaptureAction(access, 'captures.read');
+      const row = await findCaptureByFileName(db, access.benchId, fileName);
+      return row ? toCapture(row) : null;
     },
 
     async list(access: BenchAccess, query: ParsedListQuery): Promise<CaptureListResponse> {

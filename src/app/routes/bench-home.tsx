@@ -1,4 +1,4 @@
-/** /benches/:benchId — a bench's home: what it is, its lasers, and (for owners) its record. */
+/** /benches/:benchId — a bench's home: what it is, its captures, its lasers, and (for owners) its record. */
 import { useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { useNavigate, useParams, type LoaderFunctionArgs } from 'react-router';
@@ -14,6 +14,7 @@ import { benchQueryOptions, useBench } from '../../features/benches/api/get-benc
 import { benchKeys } from '../../features/benches/api/keys';
 import { BenchRecordForm } from '../../features/benches/components/bench-record-form';
 import { DeleteBenchControl } from '../../features/benches/components/delete-bench-control';
+import { CaptureList } from '../../features/captures/components/capture-list';
 import { lasersQueryOptions, useLasers } from '../../features/lasers/api/get-lasers';
 import { LaserForm } from '../../features/lasers/components/laser-form';
 import { LaserList } from '../../features/lasers/components/laser-list';
@@ -66,8 +67,17 @@ export function BenchHomeRoute() {
       />
 
       <Section
-        id="lasers"
+        id="captures"
         className="mt-10"
+        title="Captures"
+        lede="Uploaded records with their latest analysis: status, intrinsic and β-line linewidths. Open one for its spectrum."
+      >
+        <CaptureList benchId={bench.id} lasers={lasers} canWrite={canWrite} />
+      </Section>
+
+      <Section
+        id="lasers"
+        className="mt-14"
         title="Lasers"
         lede={
           canWrite

@@ -22,6 +22,7 @@
  * L ≤ N_S < 2L + q (N_S the samples that reached it), i.e. the lowest point lies in [1/T0, ≈2/T0).
  * Those points have few averages (often K = 1) and, for steep spectra, window leakage (METHODS 1.4):
  * read them as indicative.
+ * DC and the Nyquist bin are left out (their one-sided values are not densities of the same kind).
  * Output: with pointsPerDecade > 0 the stitched bins are merged into geometric bins (mean of linear
  * values, analysis/spectrum/log-binning.ts); `averages` is then the sum of K over the merged bins and
  * `resolutionHz` the summed bin widths; `stage` is that of the lowest merged bin.
@@ -200,10 +201,11 @@ export function createLogFrequencyAccumulator(options: LogFrequencyOptions): Log
         const r = results[deepest]!;
         for (let m = 1; m < r.psd.length && r.frequencyHz[m] < reliableFromHz; m++) add(deepest, m);
       }
-      // reliable stages, deepest first: stage s covers [minBin·fs_s/L, minBin·fs_{s−1}/L), stage 0 up to fs/2
+      // reliable stages, deepest first: stage s covers [minBin·fs_s/L, minBin·fs_{s−1}/L), stage 0 up to
+      // fs/2 but without the Nyquist bin (not doubled: half the density of white noise, half the dof)
       for (let s = reliable; s >= 0; s--) {
         const r = results[s]!;
-        const top = s === 0 ? Infinity : lowEdge(s - 1);
+        const top = s === 0 ? (L % 2 === 0 ? fs / 2 : Infinity) : lowEdge(s - 1);
         for (let m = o.minBin; m < r.psd.length && r.frequencyHz[m] < top; m++) add(s, m);
       }
       const base = {

@@ -71,10 +71,12 @@ export function createGaussian(rng: Random): Gaussian {
         s = u * u + v * v;
       } while (s >= 1);
       const f = Math.sqrt((-2 * Math.log(s)) / s);
-      out[i++] = sigma * u * f;
-      if (i < n) out[i++] = sigma * v * f;
+      const g2 = v * f;
+      out[i++] = sigma * (u * f);
+      // σ·(v·f) in both branches, so the values do not depend on where a block ends
+      if (i < n) out[i++] = sigma * g2;
       else {
-        spare = v * f;
+        spare = g2;
         hasSpare = true;
       }
     }

@@ -5,7 +5,8 @@ import { estimateIntermediateFrequency } from '../../analysis/phase/intermediate
 import { designLowpassFir, lowpassTapCount } from '../../analysis/phase/lowpass-fir';
 import { createOverlapSaveFilter } from '../../analysis/phase/overlap-save';
 import { welch } from '../../analysis/spectrum/welch';
-import { synthesize, type SynthOptions } from '../../analysis/synth/generator';
+import { synthesize } from '../../analysis/synth/generator';
+import type { SynthOptions } from '../../analysis/synth/synth-options';
 import type { SampleBlock } from '../../analysis/types';
 
 function frequencyOf(options: FrequencyStageOptions, block: SampleBlock) {

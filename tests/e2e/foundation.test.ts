@@ -182,6 +182,81 @@ describe('foundation flow in chromium', () => {
     await screenshots(page, '09-benches');
   });
 
+  it('editing a laser by optical frequency 193.500 THz stores 1549.32 nm (ITU-T G.694.1 grid pair)', async () => {
+    const { page } = browser;
+    await page.getByRole('link', { name: benchName }).click();
+    await page.getByRole('heading', { level: 1, name: benchName }).waitFor();
+    await page.getByRole('button', { name: `Edit ${laserName}` }).click();
+    const form = page.getByRole('form', { name: `Edit ${laserName}` });
+    await form.getByText('ν in THz').click();
+    // switching carries the value over, converted
+    expect(await form.getByLabel('Optical frequency').inputValue()).toBe('193.400');
+    await form.getByLabel('Optical frequency').fill('193.5');
+    await form.getByText(/λ = c\/ν = 1549\.315\s+nm/).waitFor();
+    await form.getByRole('button', { name: 'Save laser' }).click();
+    await form.waitFor({ state: 'detached' });
+    const row = page.getByRole('row', { name: new RegExp(laserName) });
+    const text = (await row.innerText()).replace(/\s+/g, ' ');
+    expect(text).toMatch(/1549\.315 nm/); // c/193.5 THz = 1549.3150… nm
+    expect(text).toMatch(/193\.500 THz/);
+  });
+
+  it('a wavelength that is not a number is refused beside the field, before anything is sent', async () => {
+    const { page } = browser;
+    await page.getByRole('button', { name: `Edit ${laserName}` }).click();
+    const form = page.getByRole('form', { name: `Edit ${laserName}` });
+    await form.getByText('λ in nm').click();
+    await form.getByLabel('Wavelength').fill('15x0');
+    await form.getByRole('button', { name: 'Save laser' }).click();
+    await form.getByText('Must be a number, e.g. 1550.12.').waitFor();
+    expect(await form.getByLabel('Wavelength').getAttribute('aria-invalid')).toBe('true');
+    await form.getByRole('button', { name: 'Cancel' }).click();
+  });
+
+  it('the owner adds an existing account as viewer, makes them analyst, then removes them', async () => {
+    const { page } = browser;
+    // a colleague signs up on their own (outside this browser session)
+    const colleague = { name: 'Tomas Aalto', email: `tomas.aalto+${stamp}@example.org`, password: person.password };
+    const res = await fetch(url('/api/auth/sign-up'), {
+      method: 'POST',
+      headers: { 'Content-Type': 'application/json', Origin: server.baseUrl },
+      body: JSON.stringify(colleague),
+    });
+    expect(res.status).toBe(201);
+
+    await page.goto(url(`${benchPath}/members`));
+    await page.getByRole('heading', { level: 1, name: 'Members' }).waitFor();
+    const form = page.getByRole('form', { name: 'Add a member' });
+    await form.getByLabel('E-mail').fill('nobody.here@example.org');
+    await form.getByRole('button', { name: 'Add member' }).click();
+    await form.getByRole('alert').waitFor(); // no account with that e-mail
+    await form.getByLabel('E-mail').fill(colleague.email);
+    await form.getByLabel('Role').selectOption('viewer');
+    await form.getByRole('button', { name: 'Add member' }).click();
+    await form.getByText(`${colleague.name} joined as viewer.`).waitFor();
+
+    const row = page.getByRole('row', { name: new RegExp(colleague.name) });
+    await row.getByRole('combobox', { name: `Role of ${colleague.name}` }).selectOption('analyst');
+    await row.getByRole('button', { name: 'Change role' }).click();
+    await row.getByText('Role changed.').waitFor();
+    await screenshots(page, '10-members-two');
+
+    await row.getByRole('button', { name: 'Remove' }).click();
+    const dialog = page.getByRole('dialog', { name: `Remove ${colleague.name}?` });
+    await dialog.getByRole('button', { name: 'Remove member' }).click();
+    await row.waitFor({ state: 'detached' });
+  });
+
+  it('removing the laser asks first, then the bench is empty again', async () => {
+    const { page } = browser;
+    await page.goto(url(benchPath));
+    await page.getByRole('button', { name: `Remove ${laserName}` }).click();
+    const dialog = page.getByRole('dialog', { name: `Remove ${laserName}?` });
+    await dialog.getByRole('button', { name: 'Keep it' }).waitFor();
+    await dialog.getByRole('button', { name: 'Remove laser' }).click();
+    await page.getByText('No lasers on this bench yet.').waitFor();
+  });
+
   it('no page logged an error in the browser console', () => {
     expect(consoleErrors).toEqual([]);
   });

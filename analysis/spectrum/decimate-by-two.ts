@@ -58,20 +58,22 @@ export function createDecimatorByTwo(order: number): DecimatorByTwo {
       // work = [history (have samples) | x]
       const h0 = q - have;
       for (let j = 0; j < have; j++) work[j] = history[h0 + j];
-      for (let j = 0; j < n; j++) work[have + j] = x[j];
+      if (ArrayBuffer.isView(x)) work.set(x as Float64Array, have); // typed arrays: block copy
+      else for (let j = 0; j < n; j++) work[have + j] = x[j];
       const total = have + n;
       const outs = Math.max(0, total - q); // full-support outputs available
       const out = new Float64Array(Math.ceil(outs / 2) + 1);
       let count = 0;
-      for (let k = 0; k < outs; k++) {
-        if (phase === 0) {
-          let s = 0;
-          // y = Σ_j c[j]·x[t − j] with t = k + q the newest input
-          for (let j = 0; j <= q; j++) s += c[j] * work[k + q - j];
-          out[count++] = s;
-        }
-        phase ^= 1;
+      const half = q >> 1;
+      const odd = q & 1;
+      // y = Σ_j c[j]·x[t − j], t = k + q the newest input; c is symmetric, so pair x[t−j] with x[t−q+j]
+      for (let k = phase; k < outs; k += 2) {
+        const t = k + q;
+        let s = odd ? 0 : c[half] * work[t - half];
+        for (let j = 0; j < half + odd; j++) s += c[j] * (work[t - j] + work[k + j]);
+        out[count++] = s;
       }
+      phase = (phase + outs) & 1;
       // keep the last q inputs
       const keep = Math.min(q, total);
       for (let j = 0; j < keep; j++) history[q - keep + j] = work[total - keep + j];

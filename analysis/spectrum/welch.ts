@@ -93,10 +93,12 @@ export function createWelchAccumulator(options: WelchOptions): WelchAccumulator 
     rawSum: sum,
     push(x: ArrayLike<number>) {
       const n = x.length;
+      const typed = ArrayBuffer.isView(x) ? (x as Float64Array) : null;
       let i = 0;
       while (i < n) {
         const take = Math.min(L - fill, n - i);
-        for (let j = 0; j < take; j++) buffer[fill + j] = x[i + j];
+        if (typed) buffer.set(typed.subarray(i, i + take), fill); // block copy
+        else for (let j = 0; j < take; j++) buffer[fill + j] = x[i + j];
         fill += take;
         i += take;
         if (fill === L) {

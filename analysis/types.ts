@@ -166,7 +166,8 @@ export interface LogFrequencySpectrum extends Spectrum {
   resolutionHz: Float64Array;
   /** decimation stage behind each point (0 = full rate, s = rate fs/2^s) */
   stage: Uint8Array;
-  /** lowest frequency meeting the stitching rule (bin ≥ minBin, K ≥ minAverages); points below it are the deepest stage's first bins */
+  /** lowest frequency meeting the stitching rule (bin ≥ minBin, K ≥ minAverages); points below it are the
+   *  deepest stage's first bins, reaching down to between 1/T0 and ≈2/T0 (few averages: indicative) */
   reliableFromHz: number;
   sampleRateHz: number;
   segmentLength: number;

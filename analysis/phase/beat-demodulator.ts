@@ -25,6 +25,8 @@
  * +0.06 % at 10 kHz, +0.9 % at 40 kHz, +2.8 % at 80 kHz, whatever B; Marple's FFT analytic signal over
  * the whole record gives the same figures. Put the IF near fs/4 and read S_ν well below d.
  * The mixer's phasor is recomputed exactly every 1024 samples (cycle count kept modulo 1).
+ * Worked check: cos(2π·251 kHz·t) at fs = 1 MHz, f_IF = 250 kHz → |z| = 1/2 and the phase advances
+ * by 2π·1 kHz/fs per output sample.
  */
 
 import { AnalysisInputError } from '../errors';

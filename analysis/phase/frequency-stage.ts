@@ -15,6 +15,14 @@
  * The mean (carrier offset) and the linear drift are NOT subtracted here: the Welch stage removes
  * them per segment (detrend 'constant' / 'linear'); they are reported from running sums in the summary.
  * State (last phase, filter history) is carried across blocks: the output does not depend on block sizes.
+ * First difference, no correction (METHODS 2.4): for sampled white FM the differenced phase is exactly
+ * white with level h0 up to Nyquist; the 1/sinc²(f/fs) correction, for band-limited S_ν only, is
+ * analysis/spectrum/finite-difference-correction.ts, applied to the spectrum.
+ * Warnings (summary.warnings): steps > 0.8π (METHODS 2.7), samples with |z|² < 1e-6 × running mean |z|².
+ * A beat note without intermediateFrequencyHz is buffered for `ifSearchSamples` before anything comes
+ * out; bandwidthHz/decimation are then checked against the IF found (AnalysisInputError from push).
+ * References: IEEE Std 1139-2008 (ν = (1/2π)·dφ/dt); numpy.unwrap semantics for the wrap of Δφ.
+ * Worked check: I + iQ = e^{2πi·1234.5·k/fs} gives ν = 1234.5 Hz in every sample, drift 0.
  */
 
 import { AnalysisInputError } from '../errors';

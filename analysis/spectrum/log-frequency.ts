@@ -19,7 +19,8 @@
  * is divided out (≤ 1e-4 at the default L = 4096).
  * Reaching 1/T0: below `reliableFromHz` (the lowest frequency meeting the rule) the deepest stage that
  * completed at least one segment contributes its bins m ≥ 1. Its first bin is fs_S/L with
- * L ≤ N_S < 2L + q (N_S the samples that reached it), i.e. the lowest point lies in [1/T0, ≈2/T0).
+ * L ≤ N_S < 2L + q + 1 (N_S the samples that reached it), i.e. the lowest point lies in [1/T0, ≈2/T0]
+ * (2/T0 exactly when N is a power of two times L).
  * Those points have few averages (often K = 1) and, for steep spectra, window leakage (METHODS 1.4):
  * read them as indicative.
  * DC and the Nyquist bin are left out (their one-sided values are not densities of the same kind).
@@ -27,6 +28,10 @@
  * values, analysis/spectrum/log-binning.ts); `averages` is then the sum of K over the merged bins and
  * `resolutionHz` the summed bin widths; `stage` is that of the lowest merged bin.
  * Units: the input's unit (Hz for ν) → unit²/Hz, one-sided, as analysis/spectrum/welch.ts.
+ * Defaults: L 4096, hann, overlap by window, detrend 'constant', minBin 4, minAverages 2, 30 points
+ * per decade, binomial order 6.
+ * Worked check: white noise of density h0 reads h0 at every point (within its χ² scatter), from the
+ * first point near 1/T0 to just below fs/2.
  */
 
 import { AnalysisInputError } from '../errors';

@@ -24,6 +24,7 @@
  * Additive noise reads as a phase floor S_φ = N0/A² for 'iq' and N0/(A²/2) for 'beat' (METHODS 2.6).
  * Random numbers: xoshiro128** + Marsaglia polar (analysis/synth/prng.ts, gaussian.ts); the same seed
  * and options give the same samples whatever the block sizes.
+ * Worked check: 'frequency' output with h0 = 3 Hz²/Hz at fs = 1 kHz has per-sample variance h0·fs/2 = 1500 Hz².
  */
 
 import { AnalysisInputError } from '../errors';

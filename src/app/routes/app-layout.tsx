@@ -1,8 +1,9 @@
 /** The signed-in frame: header with the main sections, the page, and the footer. */
 import type { QueryClient } from '@tanstack/react-query';
-import { useEffect, useRef } from 'react';
+import { Suspense, useEffect, useRef } from 'react';
 import { Link, Outlet, useLocation, useMatches, type LoaderFunctionArgs } from 'react-router';
 import { SiteChrome } from '../../components/layout/site-chrome';
+import { LoadingNote } from '../../components/ui/notes';
 import { paths } from '../../config/paths';
 import { useSignedInUser } from '../../features/auth/api/get-me';
 import { requireUser } from './guards';
@@ -57,7 +58,10 @@ export function AppLayout() {
       }
       showLaserSafety={laserSafety}
     >
-      <Outlet />
+      {/* loaders fill the cache first; this only shows if a page asks for data they did not load */}
+      <Suspense fallback={<LoadingNote>Loading the page…</LoadingNote>}>
+        <Outlet />
+      </Suspense>
     </SiteChrome>
   );
 }

@@ -1,3 +1,4 @@
+import { Suspense } from 'react';
 import { Outlet, ScrollRestoration } from 'react-router';
 import { LoadingNote } from '../../components/ui/notes';
 import { Wordmark } from '../../components/layout/wordmark';
@@ -5,7 +6,9 @@ import { Wordmark } from '../../components/layout/wordmark';
 export function RootLayout() {
   return (
     <>
-      <Outlet />
+      <Suspense fallback={<RootHydrateFallback />}>
+        <Outlet />
+      </Suspense>
       <ScrollRestoration />
     </>
   );

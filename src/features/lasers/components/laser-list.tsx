@@ -1,4 +1,4 @@
-import { Fragment, useState } from 'react';
+import { useState } from 'react';
 import type { Laser } from '../../../../server/contracts/lasers';
 import { Button } from '../../../components/ui/button';
 import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
@@ -59,46 +59,44 @@ export function LaserList({ benchId, lasers, canWrite, onChanged }: LaserListPro
                 </td>
               </tr>
             ) : (
-              <Fragment key={laser.id}>
-                <tr className="border-b border-rule align-top" data-laser-id={laser.id}>
-                  <td className="py-3.5 pr-4">
-                    <span className="font-medium text-ink">{laser.name}</span>
-                    {laser.notes && <p className="mt-0.5 line-clamp-2 max-w-[26rem] text-sm leading-relaxed text-ink-soft">{laser.notes}</p>}
+              <tr key={laser.id} className="border-b border-rule align-top" data-laser-id={laser.id}>
+                <td className="py-3.5 pr-4">
+                  <span className="font-medium text-ink">{laser.name}</span>
+                  {laser.notes && <p className="mt-0.5 line-clamp-2 max-w-[26rem] text-sm leading-relaxed text-ink-soft">{laser.notes}</p>}
+                </td>
+                <td className="py-3.5 pr-4 text-sm whitespace-nowrap text-ink-soft">{LASER_TYPE_LABELS[laser.type]}</td>
+                <td className="py-3.5 pr-4 text-right">
+                  <Quantity q={formatWavelengthNm(laser.wavelengthNm)} className="text-[0.9375rem]" />
+                </td>
+                <td className="py-3.5 pr-4 text-right">
+                  <Quantity
+                    q={formatFrequencyThz(laser.frequencyThz)}
+                    className="text-[0.9375rem]"
+                    title={laser.frequencyThz != null ? `${laser.frequencyThz} THz` : undefined}
+                  />
+                </td>
+                <td className="py-3.5 pr-4 text-right">
+                  <Mono className="text-sm whitespace-nowrap text-ink-faint" title={formatIsoDateTime(laser.updatedAt)}>
+                    {formatIsoDate(laser.updatedAt)}
+                  </Mono>
+                </td>
+                {canWrite && (
+                  <td className="py-2.5 text-right whitespace-nowrap">
+                    <Button variant="quiet" size="sm" onClick={() => setEditingId(laser.id)} aria-label={`Edit ${laser.name}`}>
+                      Edit
+                    </Button>
+                    <Button
+                      variant="quiet"
+                      size="sm"
+                      className="ml-4 text-danger hover:text-danger"
+                      onClick={() => setRemoving(laser)}
+                      aria-label={`Remove ${laser.name}`}
+                    >
+                      Remove
+                    </Button>
                   </td>
-                  <td className="py-3.5 pr-4 text-sm whitespace-nowrap text-ink-soft">{LASER_TYPE_LABELS[laser.type]}</td>
-                  <td className="py-3.5 pr-4 text-right">
-                    <Quantity q={formatWavelengthNm(laser.wavelengthNm)} className="text-[0.9375rem]" />
-                  </td>
-                  <td className="py-3.5 pr-4 text-right">
-                    <Quantity
-                      q={formatFrequencyThz(laser.frequencyThz)}
-                      className="text-[0.9375rem]"
-                      title={laser.frequencyThz != null ? `${laser.frequencyThz} THz` : undefined}
-                    />
-                  </td>
-                  <td className="py-3.5 pr-4 text-right">
-                    <Mono className="text-sm whitespace-nowrap text-ink-faint" title={formatIsoDateTime(laser.updatedAt)}>
-                      {formatIsoDate(laser.updatedAt)}
-                    </Mono>
-                  </td>
-                  {canWrite && (
-                    <td className="py-2.5 text-right whitespace-nowrap">
-                      <Button variant="quiet" size="sm" onClick={() => setEditingId(laser.id)} aria-label={`Edit ${laser.name}`}>
-                        Edit
-                      </Button>
-                      <Button
-                        variant="quiet"
-                        size="sm"
-                        className="ml-4 text-danger hover:text-danger"
-                        onClick={() => setRemoving(laser)}
-                        aria-label={`Remove ${laser.name}`}
-                      >
-                        Remove
-                      </Button>
-                    </td>
-                  )}
-                </tr>
-              </Fragment>
+                )}
+              </tr>
             ),
           )}
         </tbody>

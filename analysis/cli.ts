@@ -2,7 +2,7 @@
  * Command line: analyse one capture file and print one JSON object on stdout.
  *   npm run --silent analyze -- FILE [options]        (see --help)
  * The only file in analysis/ that touches node:fs and node:process: it opens the file as a stream of
- * 4 MiB chunks and hands it to analyzeCapture (analysis/pipeline.ts), the same code the worker runs.
+ * 1 MiB chunks and hands it to analyzeCapture (analysis/pipeline.ts), the same code the worker runs.
  * Exit status: 0 with the report on stdout; 2 for bad input or options, with exactly one line
  * "error: …" on stderr (naming the row, byte offset or header field) and nothing on stdout;
  * 1 for anything else (a defect), again one line. A progress bar goes to stderr when it is a terminal.
@@ -197,7 +197,7 @@ async function main(argv: string[]): Promise<number> {
     usageError(`cannot read '${file}'${code === 'ENOENT' ? ': no such file' : code ? `: ${code}` : ''}`);
   }
   const tty = Boolean(process.stderr.isTTY);
-  const stream = createReadStream(file, { highWaterMark: 4 << 20 });
+  const stream = createReadStream(file, { highWaterMark: 1 << 20 });
   const fileName = file.split(/[\\/]/).pop();
   try {
     const { report } = await analyzeCapture(

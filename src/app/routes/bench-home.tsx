@@ -90,7 +90,7 @@ export function BenchHomeRoute() {
               <Mono>{lasers.length}</Mono> {lasers.length === 1 ? 'laser' : 'lasers'}
             </span>
             {canWrite && !adding && (
-              <Button variant="secondary" size="sm" onClick={() => setAdding(true)} aria-controls="add-laser-heading">
+              <Button variant="secondary" size="sm" onClick={() => setAdding(true)}>
                 Add a laser
               </Button>
             )}

@@ -22,7 +22,7 @@ const nodeBuiltins = ['fs', 'path', 'os', 'child_process', 'worker_threads', 'st
 export default tseslint.config(
   {
     basePath: root,
-    ignores: ['node_modules/**', 'dist/**', '.data/**', 'storage/**', 'samples/**', 'test-results/**', 'coverage/**', '**/*.py'],
+    ignores: ['node_modules/**', 'dist/**', '.data/**', 'storage/**', 'samples/**', 'test-results/**', 'coverage/**', 'tests/bench/out/**', '**/*.py'],
   },
   {
     basePath: root,

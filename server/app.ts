@@ -15,11 +15,17 @@ import { requestLogger } from './middleware/request-logger';
 import { securityHeaders } from './middleware/security-headers';
 import { requireUser, sessionMiddleware } from './middleware/session';
 import type { AuthRateLimits } from './modules/auth/auth-rate-limits';
+import { createAnalysesRouter } from './modules/analyses/analyses.router';
+import { createAnalysesService } from './modules/analyses/analyses.service';
 import { authRouter } from './modules/auth/auth.router';
 import { benchesRouter } from './modules/benches/benches.router';
+import { createCapturesRouter } from './modules/captures/captures.router';
+import { createCapturesService } from './modules/captures/captures.service';
 import { lasersRouter } from './modules/lasers/lasers.router';
 import { membersRouter } from './modules/members/members.router';
 import { createServices, type Services } from './services';
+import { LocalDiskStorage } from './storage/local-disk-storage';
+import type { Storage } from './storage/storage';
 
 export interface AppDeps {
   db: Knex;
@@ -31,6 +37,10 @@ export interface AppDeps {
   clientDir?: string;
   /** Defaults from PHASELOOM_SIGNIN_RATE_LIMIT, PHASELOOM_SIGNUP_RATE_LIMIT, PHASELOOM_AUTH_RATE_WINDOW_MINUTES. */
   rateLimits?: AuthRateLimits;
+  /** Where capture files and series live; defaults to the local disk under env.storageDir. */
+  storage?: Storage;
+  /** Told when analyses were queued (server/index.ts passes the job runner's poke). */
+  onAnalysesQueued?: () => void;
   /** Mounts extra routes under /api after the app's own (tests use it to inject a failing route). */
   extraApiRoutes?: (api: Router) => void;
 }
@@ -70,6 +80,11 @@ export function createApp(deps: AppDeps): Express {
   api.use('/benches/:benchId/members', membersRouter(services.members));
   api.use('/benches/:benchId/lasers', lasersRouter(services.lasers));
   api.use('/benches', benchesRouter(services.benches));
+  const storage = deps.storage ?? new LocalDiskStorage(env.storageDir);
+  const queued = { db: deps.db, storage, lasers: services.lasers, onQueued: deps.onAnalysesQueued };
+  const captures = createCapturesService({ ...queued, logger });
+  api.use(createCapturesRouter({ captures, storage, maxUploadBytes: env.PHASELOOM_MAX_UPLOAD_BYTES }));
+  api.use(createAnalysesRouter({ analyses: createAnalysesService(queued) }));
   deps.extraApiRoutes?.(api);
   api.use(apiNotFound);
 

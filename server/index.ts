@@ -9,8 +9,10 @@ import path from 'node:path';
 import { loadEnv, projectRoot, type Env } from './config/env';
 import { createApp } from './app';
 import { createDb } from './db/knex';
+import { createAnalysisJobs } from './jobs/analysis-jobs';
 import { createLogger } from './lib/logger';
 import { createServices } from './services';
+import { LocalDiskStorage } from './storage/local-disk-storage';
 
 function fail(message: string): never {
   process.stderr.write(`phaseloom: error: ${message}\n`);
@@ -34,7 +36,10 @@ if (!existsSync(path.join(clientDir, 'index.html'))) {
   process.stderr.write('phaseloom: the client is not built (dist/client is missing); serving the API only — run `npm run build`\n');
 }
 const services = createServices(db);
-const app = createApp({ db, env, logger, services, clientDir });
+const storage = new LocalDiskStorage(env.storageDir);
+// analyses run in worker threads fed from the database queue (PHASELOOM_WORKERS=0: none in this process)
+const jobs = createAnalysisJobs({ db, storage, workers: env.PHASELOOM_WORKERS, logger });
+const app = createApp({ db, env, logger, services, clientDir, storage, onAnalysesQueued: jobs.poke });
 
 // Expired sessions are refused by lucia anyway; sweep their rows now and then.
 const SESSION_SWEEP_MS = 6 * 60 * 60 * 1000;
@@ -59,6 +64,7 @@ server.on('listening', () => {
   logger.debug({ host: env.HOST, port }, 'listening');
   process.stderr.write(`phaseloom: serving on http://${env.HOST}:${port}\n`);
   sweepSessions();
+  jobs.start().catch((err) => logger.error({ err }, 'starting the analysis jobs failed'));
 });
 
 let stopping = false;
@@ -72,6 +78,7 @@ function shutdown(signal: string): void {
   force.unref();
   server.close(async () => {
     clearTimeout(force);
+    await jobs.stop().catch((err) => logger.error({ err }, 'stopping the analysis jobs failed'));
     await db.destroy().catch((err) => logger.error({ err }, 'closing the database pool failed'));
     process.exit(0);
   });

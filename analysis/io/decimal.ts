@@ -116,8 +116,8 @@ export function parseDecimal(buf: Uint8Array, s: number, e: number, decimalComma
     if (negative) value = -value;
   } else {
     // correctly rounded by ECMAScript's StringToNumber; the syntax was checked above
-    let text = '';
-    for (let k = s; k < e; k++) text += buf[k] === point ? '.' : String.fromCharCode(buf[k]);
+    let text = String.fromCharCode.apply(null, buf.subarray(s, e) as unknown as number[]);
+    if (decimalComma) text = text.replace(',', '.');
     value = Number(text);
   }
   out.value = value;

@@ -67,11 +67,23 @@ export function createDecimatorByTwo(order: number): DecimatorByTwo {
       const half = q >> 1;
       const odd = q & 1;
       // y = Σ_j c[j]·x[t − j], t = k + q the newest input; c is symmetric, so pair x[t−j] with x[t−q+j]
-      for (let k = phase; k < outs; k += 2) {
-        const t = k + q;
-        let s = odd ? 0 : c[half] * work[t - half];
-        for (let j = 0; j < half + odd; j++) s += c[j] * (work[t - j] + work[k + j]);
-        out[count++] = s;
+      if (q === 6) {
+        // the default order, unrolled: (1, 6, 15, 20, 15, 6, 1)/64
+        const c0 = c[0];
+        const c1 = c[1];
+        const c2 = c[2];
+        const c3 = c[3];
+        for (let k = phase; k < outs; k += 2) {
+          out[count++] =
+            c0 * (work[k + 6] + work[k]) + c1 * (work[k + 5] + work[k + 1]) + c2 * (work[k + 4] + work[k + 2]) + c3 * work[k + 3];
+        }
+      } else {
+        for (let k = phase; k < outs; k += 2) {
+          const t = k + q;
+          let s = odd ? 0 : c[half] * work[t - half];
+          for (let j = 0; j < half + odd; j++) s += c[j] * (work[t - j] + work[k + j]);
+          out[count++] = s;
+        }
       }
       phase = (phase + outs) & 1;
       // keep the last q inputs

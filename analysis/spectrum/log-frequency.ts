@@ -1,35 +1,38 @@
 /**
- * Log-frequency S_ν estimate from about 1/T0 to fs/2: a cascade of decimate-by-2 stages, each feeding
- * a Welch accumulator of the same segment length L, stitched onto one log-spaced grid. Streaming,
- * memory O(L · number of stages), ≈ 2× the work of one Welch pass.
+ * Log-frequency S_ν estimate from about 1/T0 to fs/2: a cascade of decimate-by-2 stages feeding Welch
+ * accumulators, stitched onto one log-spaced grid. Streaming; memory O(L + L'·stages); work ≈ one
+ * Welch pass of length L plus the decimators (≈ 1.2× a plain Welch estimate).
  *
  * Usage:
  *   import { createLogFrequencyAccumulator } from '../analysis/spectrum/log-frequency';
- *   const acc = createLogFrequencyAccumulator({ sampleRateHz: 10e6, segmentLength: 4096, pointsPerDecade: 30 });
+ *   const acc = createLogFrequencyAccumulator({ sampleRateHz: 10e6, segmentLength: 65536, pointsPerDecade: 30 });
  *   acc.push(frequencyBlock); …
  *   const s = acc.result();   // LogFrequencySpectrum: frequencyHz, psd, averages, resolutionHz, stage, reliableFromHz
  *
- * Stage s runs at fs_s = fs/2^s (binomial low-pass + decimation by 2 between stages,
- * analysis/spectrum/decimate-by-two.ts) and has K_s ≈ 2^{−s}·K_0 segments. Stitching rule (METHODS 1.5,
- * "cheaper engineering alternative"): every frequency comes from the stage with the finest resolution
- * that still has K_s ≥ minAverages and f ≥ minBin·fs_s/L. So stage 0 gives [minBin·fs/L, fs/2] with
- * resolution fs/L and the most averages, and each deeper stage s gives [minBin, 2·minBin) bins, i.e.
- * resolution between f/(2·minBin) and f/minBin with K_s ≈ 2·T0·f/minBin·(1 − overlap)⁻¹/2.
+ * Level s runs at fs_s = fs/2^s (binomial low-pass + decimation by 2 between levels,
+ * analysis/spectrum/decimate-by-two.ts). Level 0 carries a Welch accumulator of segment L; the deeper
+ * levels from s1 = the smallest s with 2^s·L' ≥ 2L carry Welch accumulators of segment L' (default
+ * min(L, 1024)). A segment of L' at level s spans L'·2^s input samples, the same time as a segment of
+ * L at level s − log2(L/L'): the same resolution and averages for about L'/L of the FFT work.
+ * Stitching rule (METHODS 1.5, "cheaper engineering alternative"): every frequency comes from the stage
+ * with the finest resolution that still has K ≥ minAverages and f ≥ minBin·fs_s/L_s. So level 0 gives
+ * [minBin·fs/L, fs/2) with resolution fs/L and the most averages, and each deeper stage gives
+ * [minBin·fs_s/L', the next shallower stage's low edge) — bins [minBin, 2·minBin) when L/L' is a power
+ * of two — i.e. resolution between f/(2·minBin) and f/minBin, K_s ≈ T0·f/(minBin·(1 − overlap)).
  * The droop of the binomial filters, Π_j cos^{2q}(πf/r_j) over the rates r_j before each decimation,
- * is divided out (≤ 1e-4 at the default L = 4096).
+ * is divided out (≤ 1e-4 at the defaults); aliases reach the bins used below −85 dB (q = 6).
  * Reaching 1/T0: below `reliableFromHz` (the lowest frequency meeting the rule) the deepest stage that
- * completed at least one segment contributes its bins m ≥ 1. Its first bin is fs_S/L with
- * L ≤ N_S < 2L + q + 1 (N_S the samples that reached it), i.e. the lowest point lies in [1/T0, ≈2/T0]
- * (2/T0 exactly when N is a power of two times L).
- * Those points have few averages (often K = 1) and, for steep spectra, window leakage (METHODS 1.4):
- * read them as indicative.
+ * completed at least one segment contributes its bins m ≥ 1. Its first bin is fs_S/L' with
+ * L' ≤ N_S < 2L' + q + 1 (N_S the samples that reached it), i.e. the lowest point lies in [1/T0, ≈2/T0]
+ * (2/T0 exactly when N is a power of two times L'). Those points have few averages (often K = 1) and,
+ * for steep spectra, window leakage (METHODS 1.4): read them as indicative.
  * DC and the Nyquist bin are left out (their one-sided values are not densities of the same kind).
  * Output: with pointsPerDecade > 0 the stitched bins are merged into geometric bins (mean of linear
  * values, analysis/spectrum/log-binning.ts); `averages` is then the sum of K over the merged bins and
- * `resolutionHz` the summed bin widths; `stage` is that of the lowest merged bin.
+ * `resolutionHz` the summed bin widths; `stage` is the level of the lowest merged bin.
  * Units: the input's unit (Hz for ν) → unit²/Hz, one-sided, as analysis/spectrum/welch.ts.
- * Defaults: L 4096, hann, overlap by window, detrend 'constant', minBin 4, minAverages 2, 30 points
- * per decade, binomial order 6.
+ * Defaults: L 4096, L' min(L, 1024), hann, overlap by window, detrend 'constant', minBin 4,
+ * minAverages 2, 30 points per decade, binomial order 6.
  * Worked check: white noise of density h0 reads h0 at every point (within its χ² scatter), from the
  * first point near 1/T0 to just below fs/2.
  */
@@ -58,6 +61,8 @@ export interface LogFrequencyOptions {
   pointsPerDecade?: number;
   /** order q of the binomial anti-alias filter (default 6) */
   decimatorOrder?: number;
+  /** segment length L' of the deeper stages (default min(L, 1024); 16·minBin ≤ L' ≤ L) */
+  cascadeSegmentLength?: number;
 }
 
 export interface ResolvedLogFrequencyOptions {
@@ -66,6 +71,7 @@ export interface ResolvedLogFrequencyOptions {
   minAverages: number;
   pointsPerDecade: number;
   decimatorOrder: number;
+  cascadeSegmentLength: number;
 }
 
 export interface LogFrequencyAccumulator {
@@ -113,35 +119,64 @@ export function resolveLogFrequencyOptions(options: LogFrequencyOptions): Resolv
   if (!Number.isInteger(decimatorOrder) || decimatorOrder < 2 || decimatorOrder > 16) {
     throw new AnalysisInputError(`decimatorOrder must be an integer in [2, 16], got ${String(decimatorOrder)}`);
   }
-  return { welch, minBin, minAverages, pointsPerDecade, decimatorOrder };
+  const cascadeSegmentLength = options.cascadeSegmentLength ?? Math.max(16 * minBin, Math.min(welch.segmentLength, 1024));
+  if (
+    !Number.isInteger(cascadeSegmentLength) ||
+    cascadeSegmentLength < 16 * minBin ||
+    cascadeSegmentLength > welch.segmentLength
+  ) {
+    throw new AnalysisInputError(
+      `cascadeSegmentLength must be an integer in [16·minBin, segmentLength] = [${16 * minBin}, ${welch.segmentLength}], got ${String(options.cascadeSegmentLength)}`,
+    );
+  }
+  return { welch, minBin, minAverages, pointsPerDecade, decimatorOrder, cascadeSegmentLength };
 }
 
 interface Stage {
-  welch: WelchAccumulator;
-  decimator: DecimatorByTwo;
+  /** decimation level s: rate fs/2^s */
+  level: number;
   rateHz: number;
+  /** null on the levels that only decimate */
+  welch: WelchAccumulator | null;
+  segmentLength: number;
+  decimator: DecimatorByTwo;
+}
+
+/** First level carrying a cascade Welch accumulator: the smallest s with 2·minBin·fs/(2^s·L') ≤ minBin·fs/L. */
+export function firstCascadeLevel(segmentLength: number, cascadeSegmentLength: number): number {
+  let s = 1;
+  while (2 ** s * cascadeSegmentLength < 2 * segmentLength) s++;
+  return s;
 }
 
 export function createLogFrequencyAccumulator(options: LogFrequencyOptions): LogFrequencyAccumulator {
   const o = resolveLogFrequencyOptions(options);
   const fs = o.welch.sampleRateHz;
   const L = o.welch.segmentLength;
+  const Lc = o.cascadeSegmentLength;
+  const s1 = firstCascadeLevel(L, Lc);
   const stages: Stage[] = [];
   let samplesSeen = 0;
 
   function makeStage(s: number): Stage {
     const rateHz = fs / 2 ** s;
+    const segmentLength = s === 0 ? L : Lc;
+    const hasWelch = s === 0 || s >= s1;
     return {
-      welch: createWelchAccumulator({
-        sampleRateHz: rateHz,
-        segmentLength: L,
-        window: o.welch.window,
-        overlap: o.welch.overlap,
-        detrend: o.welch.detrend,
-        scaling: 'density',
-      }),
-      decimator: createDecimatorByTwo(o.decimatorOrder),
+      level: s,
       rateHz,
+      segmentLength,
+      welch: hasWelch
+        ? createWelchAccumulator({
+            sampleRateHz: rateHz,
+            segmentLength,
+            window: o.welch.window,
+            overlap: o.welch.overlap,
+            detrend: o.welch.detrend,
+            scaling: 'density',
+          })
+        : null,
+      decimator: createDecimatorByTwo(o.decimatorOrder),
     };
   }
 
@@ -149,7 +184,7 @@ export function createLogFrequencyAccumulator(options: LogFrequencyOptions): Log
     if (x.length === 0) return;
     if (s >= stages.length) stages.push(makeStage(s));
     const stage = stages[s];
-    stage.welch.push(x);
+    if (stage.welch) stage.welch.push(x);
     if (s + 1 < MAX_STAGES) feed(s + 1, stage.decimator.push(x));
   }
 
@@ -166,7 +201,9 @@ export function createLogFrequencyAccumulator(options: LogFrequencyOptions): Log
       feed(0, x);
     },
     result(): LogFrequencySpectrum {
-      const results: (WelchSpectrum | null)[] = stages.map((st) => (st.welch.segments > 0 ? st.welch.result() : null));
+      // the Welch-bearing stages, shallow to deep, with their estimates (null: no segment yet)
+      const W = stages.filter((st) => st.welch !== null);
+      const results: (WelchSpectrum | null)[] = W.map((st) => (st.welch!.segments > 0 ? st.welch!.result() : null));
       if (results.length === 0 || results[0] === null) {
         throw new AnalysisInputError(
           `the series has ${samplesSeen} samples, fewer than one segment of ${L}: choose a shorter segment`,
@@ -175,11 +212,11 @@ export function createLogFrequencyAccumulator(options: LogFrequencyOptions): Log
       // deepest stage meeting K ≥ minAverages (reliable), and deepest with any segment
       let reliable = -1;
       let deepest = 0;
-      for (let s = 0; s < results.length; s++) {
-        const r = results[s];
+      for (let i = 0; i < results.length; i++) {
+        const r = results[i];
         if (r === null) break;
-        deepest = s;
-        if (r.averages >= o.minAverages && reliable === s - 1) reliable = s;
+        deepest = i;
+        if (r.averages >= o.minAverages && reliable === i - 1) reliable = i;
       }
       const q = o.decimatorOrder;
       const fList: number[] = [];
@@ -187,31 +224,32 @@ export function createLogFrequencyAccumulator(options: LogFrequencyOptions): Log
       const kList: number[] = [];
       const resList: number[] = [];
       const sList: number[] = [];
-      const add = (s: number, m: number): void => {
-        const r = results[s]!;
+      const add = (i: number, m: number): void => {
+        const r = results[i]!;
+        const level = W[i].level;
         const f = r.frequencyHz[m];
-        // divide out the droop of the s binomial filters: Π_j cos^{2q}(π f / r_j), r_j = fs/2^j
+        // divide out the droop of the binomial filters passed: Π_j cos^{2q}(π f / r_j), r_j = fs/2^j, j < level
         let gain = 1;
-        for (let j = 0; j < s; j++) gain *= binomialPowerGain(f, stages[j].rateHz, q);
+        for (let j = 0; j < level; j++) gain *= binomialPowerGain(f, fs / 2 ** j, q);
         fList.push(f);
         pList.push(r.psd[m] / gain);
         kList.push(r.averages);
-        resList.push(stages[s].rateHz / L);
-        sList.push(s);
+        resList.push(W[i].rateHz / W[i].segmentLength);
+        sList.push(level);
       };
-      const lowEdge = (s: number): number => (o.minBin * stages[s].rateHz) / L;
+      const lowEdge = (i: number): number => (o.minBin * W[i].rateHz) / W[i].segmentLength;
       const reliableFromHz = reliable >= 0 ? lowEdge(reliable) : fs / 2;
       // below the rule: the deepest stage's bins m ≥ 1 under reliableFromHz
       {
         const r = results[deepest]!;
         for (let m = 1; m < r.psd.length && r.frequencyHz[m] < reliableFromHz; m++) add(deepest, m);
       }
-      // reliable stages, deepest first: stage s covers [minBin·fs_s/L, minBin·fs_{s−1}/L), stage 0 up to
-      // fs/2 but without the Nyquist bin (not doubled: half the density of white noise, half the dof)
-      for (let s = reliable; s >= 0; s--) {
-        const r = results[s]!;
-        const top = s === 0 ? (L % 2 === 0 ? fs / 2 : Infinity) : lowEdge(s - 1);
-        for (let m = o.minBin; m < r.psd.length && r.frequencyHz[m] < top; m++) add(s, m);
+      // reliable stages, deepest first: each covers [its low edge, the next shallower stage's low edge);
+      // stage 0 up to fs/2 but without the Nyquist bin (not doubled: half the density of white noise, half the dof)
+      for (let i = reliable; i >= 0; i--) {
+        const r = results[i]!;
+        const top = i === 0 ? (L % 2 === 0 ? fs / 2 : Infinity) : lowEdge(i - 1);
+        for (let m = o.minBin; m < r.psd.length && r.frequencyHz[m] < top; m++) add(i, m);
       }
       const base = {
         reliableFromHz,

@@ -110,7 +110,7 @@ describe('createLogFrequencyAccumulator (decimation cascade, stitched)', () => {
     expect(compared).toBe(512 - 4); // bins 4..511: the Nyquist bin is left out
   });
 
-  it('each deeper stage serves bins [minBin, 2·minBin) at resolution fs/(2^s·L); frequencies ascend without overlap', () => {
+  it('with L = L\' = 256 each deeper stage serves bins [minBin, 2·minBin) at resolution fs/(2^s·L); frequencies ascend', () => {
     const s = run({ sampleRateHz: fs, segmentLength: 256, pointsPerDecade: 0 }, { sampleRateHz: fs, output: 'frequency', whiteHz2PerHz: 1 }, 400_000);
     for (let i = 1; i < s.frequencyHz.length; i++) expect(s.frequencyHz[i]).toBeGreaterThan(s.frequencyHz[i - 1]);
     for (let i = 0; i < s.frequencyHz.length; i++) {
@@ -121,6 +121,33 @@ describe('createLogFrequencyAccumulator (decimation cascade, stitched)', () => {
         expect(bin).toBeLessThan(8);
       }
     }
+  });
+
+  it("deeper stages use L' = 1024 under L = 4096: levels 0, 3, 4, … with resolution fs/(2^s·1024), bins [4, 8), white level kept", () => {
+    const h0 = 0.7;
+    const s = run({ sampleRateHz: fs, segmentLength: 4096, pointsPerDecade: 0 }, { sampleRateHz: fs, output: 'frequency', whiteHz2PerHz: h0, seed: 35 }, 2 ** 21);
+    const levels = [...new Set(Array.from(s.stage))].sort((a, b) => a - b);
+    expect(levels.slice(0, 3)).toEqual([0, 3, 4]);
+    let ratio = 0;
+    let count = 0;
+    for (let i = 0; i < s.frequencyHz.length; i++) {
+      const L = s.stage[i] === 0 ? 4096 : 1024;
+      expect(s.resolutionHz[i]).toBeCloseTo(fs / 2 ** s.stage[i] / L, 12);
+      if (s.stage[i] > 0 && s.frequencyHz[i] >= s.reliableFromHz) {
+        const bin = s.frequencyHz[i] / s.resolutionHz[i];
+        expect(bin).toBeGreaterThanOrEqual(4);
+        expect(bin).toBeLessThan(8);
+        ratio += s.psd[i] / h0;
+        count++;
+      }
+    }
+    // deep-stage points, weighted alike: their mean within 10 % of the white level
+    expect(count).toBeGreaterThan(20);
+    expect(Math.abs(ratio / count - 1)).toBeLessThan(0.1);
+    // the stitched grid is continuous: stage 0 starts where level 3 stops
+    const firstStage0 = Array.from(s.stage).indexOf(0);
+    expect(s.frequencyHz[firstStage0]).toBeCloseTo((4 * fs) / 4096, 9);
+    expect(s.frequencyHz[firstStage0 - 1]).toBeCloseTo((7 * fs) / 8 / 1024, 9);
   });
 
   it('block sizes do not change the result', () => {
@@ -142,6 +169,8 @@ describe('createLogFrequencyAccumulator (decimation cascade, stitched)', () => {
       [{ sampleRateHz: 1, pointsPerDecade: -1 }, /pointsPerDecade/],
       [{ sampleRateHz: 1, decimatorOrder: 1 }, /decimatorOrder/],
       [{ sampleRateHz: 0 }, /sampleRateHz/],
+      [{ sampleRateHz: 1, segmentLength: 1024, cascadeSegmentLength: 2048 }, /cascadeSegmentLength/],
+      [{ sampleRateHz: 1, segmentLength: 1024, cascadeSegmentLength: 32 }, /cascadeSegmentLength/],
     ];
     for (const [o, msg] of bad) {
       expect(() => createLogFrequencyAccumulator(o)).toThrow(AnalysisInputError);

@@ -3,6 +3,7 @@ import {
   bandMean,
   betaSeparation,
   fromView,
+  groupSpurs,
   nearestIndexLog,
   noiseModelCurve,
   regionsAboveBeta,
@@ -137,5 +138,22 @@ describe('noiseModelCurve and nearestIndexLog', () => {
     // 40: 4× above 10, 2.5× below 100 → 100, although 40 − 10 = 30 < 60 = 100 − 40
     expect(nearestIndexLog([10, 100], 40)).toBe(1);
     expect(nearestIndexLog([], 40)).toBe(-1);
+  });
+});
+
+describe('groupSpurs', () => {
+  it('groupSpurs puts lines within 10 % of their neighbour into one group marked at its highest line', () => {
+    const groups = groupSpurs([
+      { frequencyHz: 219e3, heightDb: 11 },
+      { frequencyHz: 50, heightDb: 19 },
+      { frequencyHz: 214e3, heightDb: 10.1 },
+      { frequencyHz: 224e3, heightDb: 10.2 },
+      { frequencyHz: 100, heightDb: 8 },
+    ]);
+    expect(groups).toEqual([
+      { frequencyHz: 50, heightDb: 19, count: 1, loHz: 50, hiHz: 50 },
+      { frequencyHz: 100, heightDb: 8, count: 1, loHz: 100, hiHz: 100 },
+      { frequencyHz: 219e3, heightDb: 11, count: 3, loHz: 214e3, hiHz: 224e3 },
+    ]);
   });
 });

@@ -11,7 +11,8 @@ import { CaptureUpload } from '../../features/captures/components/capture-upload
 import { lasersQueryOptions, useLasers } from '../../features/lasers/api/get-lasers';
 import type { RouteHandle } from './app-layout';
 
-export const captureUploadHandle: RouteHandle = { laserSafety: true };
+/** the form carries the laser-safety caution itself, so the footer does not repeat it */
+export const captureUploadHandle: RouteHandle = { laserSafety: false };
 
 export const captureUploadLoader =
   (queryClient: QueryClient) =>

@@ -25,7 +25,7 @@ export const spectrumLoader =
   async ({ params }: LoaderFunctionArgs) => {
     const benchId = params.benchId ?? '';
     const analysisId = params.analysisId ?? '';
-    const [, { analysis }] = await Promise.all([
+    const [, analysis] = await Promise.all([
       queryClient.ensureQueryData(benchQueryOptions(benchId)),
       queryClient.ensureQueryData(analysisQueryOptions(analysisId)),
       queryClient.ensureQueryData(lasersQueryOptions(benchId)),

@@ -235,3 +235,37 @@ export function nearestIndexLog(frequencyHz: ArrayLike<number>, f: number): numb
   const dh = Math.abs(Math.log(frequencyHz[hi] / f));
   return dh < dl ? hi : lo;
 }
+
+export interface SpurGroup {
+  /** the highest spur of the group */
+  frequencyHz: number;
+  heightDb: number;
+  /** spurs in the group and the frequencies they span, Hz */
+  count: number;
+  loHz: number;
+  hiHz: number;
+}
+
+/**
+ * Spurs whose frequencies lie within a factor `ratio` of their neighbour (a servo bump or a
+ * relaxation peak that the finder reports as many lines) shown as one group, marked at its highest
+ * spur. Groups come in ascending frequency.
+ */
+export function groupSpurs(spurs: readonly { frequencyHz: number; heightDb: number }[], ratio = 1.1): SpurGroup[] {
+  const sorted = spurs.filter((s) => s.frequencyHz > 0).sort((a, b) => a.frequencyHz - b.frequencyHz);
+  const groups: SpurGroup[] = [];
+  for (const s of sorted) {
+    const last = groups[groups.length - 1];
+    if (last && s.frequencyHz / last.hiHz <= ratio) {
+      last.count++;
+      last.hiHz = s.frequencyHz;
+      if (s.heightDb > last.heightDb) {
+        last.heightDb = s.heightDb;
+        last.frequencyHz = s.frequencyHz;
+      }
+    } else {
+      groups.push({ frequencyHz: s.frequencyHz, heightDb: s.heightDb, count: 1, loHz: s.frequencyHz, hiHz: s.frequencyHz });
+    }
+  }
+  return groups;
+}

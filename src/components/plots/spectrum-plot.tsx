@@ -31,6 +31,7 @@ import { plotTheme as T } from './plot-theme';
 import { HtmlSymbol, SvgSymbol } from './plot-text';
 import {
   betaSeparation,
+  groupSpurs,
   nearestIndexLog,
   noiseModelCurve,
   regionsAboveBeta,
@@ -39,6 +40,7 @@ import {
   VIEW_INFO,
   type Series,
   type SpectrumView,
+  type SpurGroup,
 } from './spectrum-math';
 import { useElementWidth } from './use-element-width';
 
@@ -224,15 +226,16 @@ export function SpectrumPlot({
     );
   }, [band, floorHz2PerHz, x, y, view]);
 
+  // one mark per group of neighbouring lines (a bump reported as many spurs), at the highest one
   const spurMarks = useMemo(
     () =>
-      spurs
+      groupSpurs(spurs)
         .map((s) => {
           const i = nearestIndexLog(pts.f, s.frequencyHz);
           if (i < 0) return null;
           return { ...s, px: x(s.frequencyHz), py: y(pts.v[i]) };
         })
-        .filter((s): s is PlotSpur & { px: number; py: number } => s !== null && s.px >= 0 && s.px <= iw),
+        .filter((s): s is SpurGroup & { px: number; py: number } => s !== null && s.px >= 0 && s.px <= iw),
     [spurs, pts, x, y, iw],
   );
 
@@ -479,7 +482,11 @@ export function SpectrumPlot({
                     strokeWidth={0.6}
                     data-layer="spur"
                   >
-                    <title>{`spur at ${formatSI(s.frequencyHz, 'Hz').text}, ${formatFixed(s.heightDb, 'dB', 1).text} above the noise model`}</title>
+                    <title>
+                      {s.count > 1
+                        ? `${s.count} spurs from ${formatSI(s.loHz, 'Hz').text} to ${formatSI(s.hiHz, 'Hz').text}, up to ${formatFixed(s.heightDb, 'dB', 1).text} above the noise model`
+                        : `spur at ${formatSI(s.frequencyHz, 'Hz').text}, ${formatFixed(s.heightDb, 'dB', 1).text} above the noise model`}
+                    </title>
                   </path>
                 ))}
               </g>

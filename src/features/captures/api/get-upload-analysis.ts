@@ -5,13 +5,13 @@
  * share query code.)
  */
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { AnalysisResponse } from '../../../../server/contracts/analyses';
+import type { Analysis } from '../../../../server/contracts/analyses';
 import { apiPaths } from '../../../config/paths';
 import { api } from '../../../lib/api-client';
 import { captureKeys } from './keys';
 
-export function getUploadAnalysis(analysisId: string, signal?: AbortSignal): Promise<AnalysisResponse> {
-  return api.get<AnalysisResponse>(apiPaths.analyses.detail(analysisId), { signal });
+export function getUploadAnalysis(analysisId: string, signal?: AbortSignal): Promise<Analysis> {
+  return api.get<Analysis>(apiPaths.analyses.detail(analysisId), { signal });
 }
 
 export const uploadAnalysisQueryOptions = (analysisId: string) =>
@@ -21,7 +21,7 @@ export const uploadAnalysisQueryOptions = (analysisId: string) =>
     staleTime: 0,
     refetchInterval: (query) => {
       if (query.state.status === 'error') return false;
-      const status = query.state.data?.analysis.status;
+      const status = query.state.data?.status;
       return status === undefined || status === 'queued' || status === 'running' ? 750 : false;
     },
   });

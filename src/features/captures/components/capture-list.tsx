@@ -180,7 +180,10 @@ export function CaptureList({ benchId, lasers, canWrite, pageSize = 20 }: Captur
                   <th scope="col" className="py-2 pr-4 font-medium">Kind</th>
                   <th scope="col" className="py-2 pr-4 font-medium">Status</th>
                   <th scope="col" className="py-2 pr-4 text-right font-medium" title="π × the white floor of S_ν">Intrinsic</th>
-                  <th scope="col" className="py-2 pr-4 text-right font-medium" title="β-separation-line integrated linewidth">β-line</th>
+                  <th scope="col" className="py-2 pr-4 text-right font-medium" title="β-separation-line integrated linewidth">
+                    {/* a lower-case β: upper-casing would turn it into a Greek capital that reads as B */}
+                    <span className="normal-case">β</span>-line
+                  </th>
                   <th scope="col" className="py-2 text-right font-medium">Date</th>
                 </tr>
               </thead>

@@ -208,7 +208,7 @@ export function CaptureUpload({ benchId, lasers, defaultLaserId, onAnalysed }: C
   }, [preview?.format, form.format]);
 
   // when the first analysis is done, move on to its spectrum (once)
-  const current = analysis.data?.analysis;
+  const current = analysis.data;
   useEffect(() => {
     if (current?.status === 'done' && announced.current !== current.id) {
       announced.current = current.id;
@@ -226,6 +226,14 @@ export function CaptureUpload({ benchId, lasers, defaultLaserId, onAnalysed }: C
     error: errors[key],
     onChange: (e: { currentTarget: { value: string } }) => set(key)(e.currentTarget.value),
   });
+
+  // after a refused submit, the first field with a message takes the focus
+  const formRef = useRef<HTMLFormElement>(null);
+  const [focusTick, setFocusTick] = useState(0);
+  useEffect(() => {
+    if (focusTick === 0) return;
+    formRef.current?.querySelector<HTMLElement>('[aria-invalid="true"]')?.focus();
+  }, [focusTick]);
 
   const busy = upload.isPending;
   const started = uploaded !== null;
@@ -256,6 +264,7 @@ export function CaptureUpload({ benchId, lasers, defaultLaserId, onAnalysed }: C
     if (Object.values(next).some(Boolean)) {
       setErrors(next);
       setFormError('Some fields need a look: see the messages beside them.');
+      setFocusTick((t) => t + 1);
       return;
     }
     setErrors({});
@@ -304,7 +313,7 @@ export function CaptureUpload({ benchId, lasers, defaultLaserId, onAnalysed }: C
   const a = current;
 
   return (
-    <form onSubmit={onSubmit} noValidate aria-describedby={statusId} data-testid="capture-upload">
+    <form ref={formRef} onSubmit={onSubmit} noValidate aria-describedby={statusId} data-testid="capture-upload">
       <div className="grid grid-cols-[minmax(0,1fr)_minmax(18rem,22rem)] gap-10">
         <div className="flex min-w-0 flex-col gap-7">
           <FileDrop file={file} onFile={chooseFile} disabled={busy || started} />

@@ -15,7 +15,7 @@ export function useCreateAnalysis(captureId: string, { onCreated }: { onCreated?
   return useMutation({
     mutationFn: (settings: AnalysisSettings) => createAnalysis(captureId, settings),
     onSuccess: (data) => {
-      queryClient.setQueryData(spectraKeys.analysis(data.analysis.id), data);
+      queryClient.setQueryData(spectraKeys.analysis(data.analysis.id), data.analysis);
       onCreated?.(data.analysis.id);
       // laser trends and capture lists elsewhere pick up the new figures when they come
       return queryClient.invalidateQueries({ queryKey: spectraKeys.lasers() });

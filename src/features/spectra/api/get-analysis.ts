@@ -1,16 +1,16 @@
 /**
- * GET /api/analyses/:id → one analysis: status, progress and stage while it runs; settings, the
+ * GET /api/analyses/:id → one analysis (the object itself, not wrapped): status, progress and stage while it runs; settings, the
  * engine's result (the CLI's JSON) and the headline figures once done. Fetched again every second
  * while queued or running.
  */
 import { queryOptions, useSuspenseQuery } from '@tanstack/react-query';
-import type { AnalysisResponse, AnalysisStatus } from '../../../../server/contracts/analyses';
+import type { Analysis, AnalysisStatus } from '../../../../server/contracts/analyses';
 import { apiPaths } from '../../../config/paths';
 import { api } from '../../../lib/api-client';
 import { spectraKeys } from './keys';
 
-export function getAnalysis(analysisId: string, signal?: AbortSignal): Promise<AnalysisResponse> {
-  return api.get<AnalysisResponse>(apiPaths.analyses.detail(analysisId), { signal });
+export function getAnalysis(analysisId: string, signal?: AbortSignal): Promise<Analysis> {
+  return api.get<Analysis>(apiPaths.analyses.detail(analysisId), { signal });
 }
 
 export function isUnderway(status: AnalysisStatus | undefined): boolean {
@@ -21,11 +21,11 @@ export const analysisQueryOptions = (analysisId: string) =>
   queryOptions({
     queryKey: spectraKeys.analysis(analysisId),
     queryFn: ({ signal }) => getAnalysis(analysisId, signal),
-    refetchInterval: (query) => (query.state.status !== 'error' && isUnderway(query.state.data?.analysis.status) ? 1000 : false),
+    refetchInterval: (query) => (query.state.status !== 'error' && isUnderway(query.state.data?.status) ? 1000 : false),
     // a finished analysis never changes; one still running is never fresh
-    staleTime: (query) => (isUnderway(query.state.data?.analysis.status) ? 0 : Infinity),
+    staleTime: (query) => (isUnderway(query.state.data?.status) ? 0 : Infinity),
   });
 
 export function useAnalysis(analysisId: string) {
-  return useSuspenseQuery(analysisQueryOptions(analysisId)).data.analysis;
+  return useSuspenseQuery(analysisQueryOptions(analysisId)).data;
 }

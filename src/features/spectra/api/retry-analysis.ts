@@ -14,7 +14,7 @@ export function useRetryAnalysis(analysisId: string) {
   return useMutation({
     mutationFn: () => retryAnalysis(analysisId),
     onSuccess: (data) => {
-      queryClient.setQueryData(spectraKeys.analysis(analysisId), data);
+      queryClient.setQueryData(spectraKeys.analysis(analysisId), data.analysis);
       return queryClient.invalidateQueries({ queryKey: spectraKeys.analysis(analysisId) });
     },
   });

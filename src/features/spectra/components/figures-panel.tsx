@@ -7,7 +7,7 @@
  */
 import { useEffect, useState, type ReactNode } from 'react';
 import { LineshapePlot } from '../../../components/plots/lineshape-plot';
-import type { BandMean } from '../../../components/plots/spectrum-math';
+import { groupSpurs, type BandMean } from '../../../components/plots/spectrum-math';
 import { Button } from '../../../components/ui/button';
 import { cn } from '../../../components/ui/cn';
 import { Mono, Quantity } from '../../../components/ui/quantity';
@@ -134,7 +134,7 @@ export function FiguresPanel({
                 inputMode="decimal"
                 disabled={!canWrite}
                 aria-invalid={!t0Valid || undefined}
-                className="h-8 w-24 rounded-[3px] border border-rule-strong bg-paper-card pr-8 pl-2 font-mono text-sm text-ink focus:border-accent disabled:opacity-70"
+                className="h-8 w-28 rounded-[3px] border border-rule-strong bg-paper-card pr-8 pl-2 font-mono text-sm text-ink focus:border-accent disabled:opacity-70"
                 data-testid="observation-time"
               />
               <span className="pointer-events-none absolute inset-y-0 right-2 flex items-center font-mono text-xs text-ink-faint">ms</span>
@@ -218,17 +218,26 @@ export function FiguresPanel({
 
       {(r.spurs.length > 0 || r.warnings.length > 0) && (
         <div className="col-span-2 grid grid-cols-2 gap-x-10">
-          <Block label={`Spurs · ${r.spurs.length}`} testId="figure-spurs">
+          <Block label={`Spurs above the model · ${r.spurs.length}`} testId="figure-spurs">
             {r.spurs.length === 0 ? (
               <p className="text-sm text-ink-faint">None stand 10 dB above the model.</p>
             ) : (
-              <ul className="flex flex-wrap gap-x-5 gap-y-1 text-sm">
-                {[...r.spurs]
+              <ul className="flex flex-col gap-1 text-sm">
+                {groupSpurs(r.spurs)
                   .sort((a, b) => b.heightDb - a.heightDb)
-                  .slice(0, 12)
-                  .map((s) => (
-                    <li key={s.frequencyHz}>
-                      <Mono>{hz(s.frequencyHz).text}</Mono> <span className="text-ink-faint">+{formatFixed(s.heightDb, 'dB', 1).text}</span>
+                  .slice(0, 8)
+                  .map((g) => (
+                    <li key={g.frequencyHz} className="flex items-baseline justify-between gap-4 border-b border-rule/60 pb-1">
+                      <span>
+                        <Mono>{hz(g.frequencyHz).text}</Mono>
+                        {g.count > 1 && (
+                          <span className="text-xs text-ink-faint">
+                            {' '}
+                            · {g.count} lines, <Mono>{hz(g.loHz).text}</Mono>–<Mono>{hz(g.hiHz).text}</Mono>
+                          </span>
+                        )}
+                      </span>
+                      <Mono className="text-ink-soft">+{formatFixed(g.heightDb, 'dB', 1).text}</Mono>
                     </li>
                   ))}
               </ul>

@@ -71,7 +71,7 @@ export class RawReader implements StreamingReader {
         `byte offset ${this.bytesIn - left}`,
       );
     }
-    if (this.frames === 0) throw new AnalysisInputError('the file holds no samples', 'byte offset 0');
+    if (this.bytesIn === 0) throw new AnalysisInputError('the file is empty', 'byte offset 0');
     return [];
   }
 }

@@ -344,7 +344,8 @@ export class CsvReader implements StreamingReader {
     this.info = {
       format: 'csv',
       channelCount: dataColumns as 1 | 2,
-      sampleRateHz: this.timeColumn && k >= 2 ? 1 / this.dt : undefined,
+      // 12 significant digits: far finer than the 1e-6 spacing rule, and 1/dt prints as 100000, not 99999.99999999999
+      sampleRateHz: this.timeColumn && k >= 2 ? Number((1 / this.dt).toPrecision(12)) : undefined,
       details,
     };
     const values = this.rowValues;

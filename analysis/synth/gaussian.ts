@@ -43,9 +43,9 @@ export function createGaussian(rng: Random): Gaussian {
     let s2 = state[2];
     let s3 = state[3];
     while (i < n) {
-      let u = 0;
-      let v = 0;
-      let s = 0;
+      let u: number;
+      let v: number;
+      let s: number;
       do {
         // two xoshiro128** steps (the body of Random.nextUint32, inlined)
         let m = Math.imul(s1, 5);

@@ -343,6 +343,13 @@ export async function analyzeCapture(source: CaptureSource, options: AnalyzeOpti
           detrend: DETREND,
           pointsPerDecade: 0,
         });
+        // refuse a record that cannot give two segments before reading it, when its length is known
+        // exactly (a header's count or a raw file's size; a beat note's rate changes in the stage)
+        const known = info.declaredSamples ?? (format === 'raw' ? estimate : undefined);
+        if (known !== undefined && settings.kind !== 'beat') {
+          const n = Math.floor(known) - (settings.kind === 'frequency' ? 0 : 1); // differencing drops one
+          tooShort(n, settings.segment, logAcc.options.welch.hop);
+        }
       }
       inputSamples += block.channels[0].length;
       const nu = stage.push(block);
@@ -391,14 +398,7 @@ export async function analyzeCapture(source: CaptureSource, options: AnalyzeOpti
   const hop = logAcc.options.welch.hop;
   const n = summary.frequencySamples;
   // segments of the full-rate stage: K = ⌊(n − L)/D⌋ + 1
-  const averages = n >= L ? Math.floor((n - L) / hop) + 1 : 0;
-  if (averages < 2) {
-    throw new AnalysisInputError(
-      `the record is too short for two segments: ${n} frequency samples, ` +
-        `a segment of ${L} with overlap ${o.overlap} needs at least ${L + hop}; choose a shorter segment`,
-      `${inputSamples} samples`,
-    );
-  }
+  const averages = tooShort(n, L, hop);
   const spectrum = logAcc.result();
   const logSpectrum = logBinned(spectrum, LOG_POINTS_PER_DECADE);
   const window = makeWindow(o.window, L);
@@ -501,6 +501,18 @@ export async function analyzeCapture(source: CaptureSource, options: AnalyzeOpti
     noiseModel,
     spurs,
   };
+}
+
+/** Segments K = ⌊(n − L)/D⌋ + 1 of n frequency samples; throws when fewer than two. */
+function tooShort(n: number, L: number, hop: number): number {
+  const segments = n >= L ? Math.floor((n - L) / hop) + 1 : 0;
+  if (segments < 2) {
+    throw new AnalysisInputError(
+      `the record is too short for two segments: ${n} frequency samples, a segment of ${L} ` +
+        `with a hop of ${hop} needs at least ${L + hop}; choose a shorter segment`,
+    );
+  }
+  return segments;
 }
 
 /** Geometric bins of a stitched spectrum (mean of linear values); averages and resolutions summed. */

@@ -138,7 +138,16 @@ describe('analyzeCapture rejects', () => {
   });
   it('a record too short for two segments, saying how many samples a segment needs', async () => {
     await expect(run(small, { sampleRateHz: FS, segment: 4096 })).rejects.toThrow(
-      /too short for two segments: 4999 frequency samples, a segment of 4096 with overlap 0.5 needs at least 6144/,
+      /too short for two segments: 4999 frequency samples, a segment of 4096 with a hop of 2048 needs at least 6144/,
+    );
+  });
+  it('a record too short, from the npy header before the rest of the data is read', async () => {
+    async function* firstChunkOnly(): AsyncGenerator<Uint8Array> {
+      yield small.subarray(0, 4096);
+      throw new Error('read past the first chunk');
+    }
+    await expect(analyzeCapture({ chunks: firstChunkOnly() }, { sampleRateHz: FS, segment: 4096 })).rejects.toThrow(
+      /too short for two segments/,
     );
   });
   it('an empty file', async () => {

@@ -1,8 +1,9 @@
 /**
  * Ticks for log axes as a lab notebook draws them: a grid line at every decade, fainter lines at
  * 2…9 × 10ᵏ while the axis spans few enough decades to keep them legible, and labels thinned to
- * every n-th decade when the axis spans many. Zoomed in below a decade, the 2 and 5 ticks get
- * labels so the reader always has at least two numbers to go by.
+ * every n-th decade when the axis spans many. With fewer than three decades on the axis the 2 and 5
+ * ticks get labels too (all minors when zoomed under a decade), so the reader always has several
+ * numbers to go by.
  */
 import { formatSI } from '../../lib/units';
 
@@ -25,16 +26,14 @@ function superscript(n: number): string {
     .join('');
 }
 
-/** 10⁴, 10⁻³; 2·10⁴ for a minor tick; 1 and 10 written out. */
+/** 10⁴, 10⁻³, 2·10⁴; values from 0.01 to 999 written out (0.05, 1, 200), as they read more easily. */
 export function formatPowerOfTen(value: number): string {
   if (!(value > 0)) return String(value);
   const k = Math.floor(Math.log10(value) + 1e-9);
   const m = Math.round(value / 10 ** k);
-  const decade = k === 0 ? '1' : k === 1 ? '10' : `10${superscript(k)}`;
-  if (m === 1) return decade;
-  if (k === 0) return String(m);
-  if (k === 1) return String(m * 10);
-  return `${m}·${decade}`;
+  if (k >= -2 && k <= 2) return String(Number(`${m}e${k}`));
+  const decade = `10${superscript(k)}`;
+  return m === 1 ? decade : `${m}·${decade}`;
 }
 
 /** "10 Hz", "1 kHz", "200 kHz": SI prefixes, no trailing zeros. */
@@ -60,8 +59,10 @@ export function logTicks(domain: readonly [number, number], maxLabels: number, f
     if (v >= lo * (1 - eps) && v <= hi * (1 + eps)) majorsInRange.push(k);
   }
   const step = Math.max(1, Math.ceil(majorsInRange.length / Math.max(1, maxLabels)));
-  // few decades on screen: label 2 and 5 as well; under a decade with no room for more, every minor
-  const labelMinor = new Set<number>(decades < 0.8 ? [2, 3, 4, 5, 6, 7, 8, 9] : decades < 1.6 ? [2, 5] : []);
+  // fewer than three decades labelled: label 2 and 5 as well; none at all (zoomed under a decade): every minor
+  const labelMinor = new Set<number>(
+    majorsInRange.length === 0 || decades < 0.8 ? [2, 3, 4, 5, 6, 7, 8, 9] : majorsInRange.length < 3 ? [2, 5] : [],
+  );
   const ticks: Tick[] = [];
   for (let k = kLo; k <= kHi; k++) {
     for (let m = 1; m <= 9; m++) {

@@ -558,10 +558,11 @@ export function SpectrumPlot({
                 )}
                 {movable && bandPx && (
                   <>
+                    {/* the grip to move the whole band, on its visible part only (zoomed, it may run off the plot) */}
                     <rect
-                      x={bandPx.lo + 6}
+                      x={clamp(bandPx.lo, 0, iw) + 6}
                       y={0}
-                      width={Math.max(0, bandPx.hi - bandPx.lo - 12)}
+                      width={Math.max(0, clamp(bandPx.hi, 0, iw) - clamp(bandPx.lo, 0, iw) - 12)}
                       height={14}
                       fill={T.floor}
                       fillOpacity={0.35}
@@ -573,6 +574,8 @@ export function SpectrumPlot({
                     {band && (['lo', 'hi'] as const).map((edge) => {
                       const px = edge === 'lo' ? bandPx.lo : bandPx.hi;
                       const f = edge === 'lo' ? band[0] : band[1];
+                      // an edge zoomed out of sight stays reachable from the keyboard, drawn nowhere
+                      const shown = px >= -0.5 && px <= iw + 0.5;
                       return (
                         <g
                           key={edge}
@@ -590,10 +593,14 @@ export function SpectrumPlot({
                           className="band-handle"
                           data-testid={`band-${edge}`}
                         >
-                          <rect x={px - 6} y={0} width={12} height={ih} fill="transparent" />
-                          <line x1={px} x2={px} y1={0} y2={ih} stroke={T.floorLine} strokeWidth={1.2} />
-                          <rect x={px - 3.5} y={ih / 2 - 14} width={7} height={28} rx={2} fill={T.paper} stroke={T.floorLine} strokeWidth={1.2} />
-                          <line x1={px} x2={px} y1={ih / 2 - 8} y2={ih / 2 + 8} stroke={T.floorLine} strokeWidth={1} />
+                          {shown && (
+                            <>
+                              <rect x={px - 6} y={0} width={12} height={ih} fill="transparent" />
+                              <line x1={px} x2={px} y1={0} y2={ih} stroke={T.floorLine} strokeWidth={1.2} />
+                              <rect x={px - 3.5} y={ih / 2 - 14} width={7} height={28} rx={2} fill={T.paper} stroke={T.floorLine} strokeWidth={1.2} />
+                              <line x1={px} x2={px} y1={ih / 2 - 8} y2={ih / 2 + 8} stroke={T.floorLine} strokeWidth={1} />
+                            </>
+                          )}
                         </g>
                       );
                     })}

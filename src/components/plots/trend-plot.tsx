@@ -5,7 +5,7 @@
  */
 import { line as d3line, scaleLog, scaleTime } from 'd3';
 import { useMemo, useRef, useState } from 'react';
-import { formatIsoDate } from '../../lib/dates';
+import { formatIsoDate, formatIsoDateTime } from '../../lib/dates';
 import { formatSI } from '../../lib/units';
 import { formatFrequencyTick, logTicks } from './log-axis';
 import { plotTheme as T } from './plot-theme';
@@ -62,7 +62,13 @@ export function TrendPlot({ points, series, label, height = 240, onSelect, selec
 
   const x = scaleTime().domain(xDomain).range([0, iw]);
   const y = scaleLog().domain(yDomain).range([ih, 0]);
-  const xTicks = x.ticks(Math.max(2, Math.floor(iw / 110)));
+  // dates on the axis; within a few days the hour matters too; a label repeated by the next tick is dropped
+  const spanMs = xDomain[1].getTime() - xDomain[0].getTime();
+  const short = spanMs < 4 * 864e5;
+  const tickLabel = (t: Date) => (short ? formatIsoDateTime(t).slice(5) : formatIsoDate(t));
+  const xTicks = x
+    .ticks(Math.max(2, Math.floor(iw / (short ? 120 : 110))))
+    .filter((t, i, all) => i === 0 || tickLabel(t) !== tickLabel(all[i - 1]));
   const yTicks = logTicks(yDomain, Math.max(2, Math.floor(ih / 36)), formatFrequencyTick);
 
   const hovered = hover ? sorted.find((p) => p.id === hover.id) : undefined;
@@ -102,7 +108,7 @@ export function TrendPlot({ points, series, label, height = 240, onSelect, selec
                 ))}
               {xTicks.map((t) => (
                 <text key={`tx${t.getTime()}`} x={x(t)} y={ih + 16} textAnchor="middle">
-                  {formatIsoDate(t)}
+                  {tickLabel(t)}
                 </text>
               ))}
             </g>

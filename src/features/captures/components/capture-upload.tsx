@@ -25,7 +25,7 @@ import { SelectField, TextAreaField, TextField } from '../../../components/ui/fi
 import { FormAlert } from '../../../components/ui/notes';
 import { Mono } from '../../../components/ui/quantity';
 import { isApiError } from '../../../lib/api-client';
-import { errorsFromFailure, validateWith, type FieldErrors } from '../../../lib/form';
+import { asSentence, errorsFromFailure, validateWith, type FieldErrors } from '../../../lib/form';
 import { formatSI } from '../../../lib/units';
 import { useUploadAnalysis } from '../api/get-upload-analysis';
 import { isAbort, useUploadCapture } from '../api/upload-capture';
@@ -280,7 +280,14 @@ export function CaptureUpload({ benchId, lasers, defaultLaserId, onAnalysed }: C
           if (isApiError(error) && (error.status === 413 || error.status === 403 || error.status === 400 || error.status === 404)) {
             const e = errorsFromFailure(error, CONTRACT_FIELDS);
             setErrors(mapErrors(e.fieldErrors));
-            setFormError(e.formError ?? (Object.keys(e.fieldErrors).length ? 'Some fields need a look: see the messages beside them.' : error.message));
+            if (error.code === 'bad_input') {
+              // the engine's own reason, as it gave it
+              setFormError(`The analysis engine cannot read this file as it is: ${asSentence(error.message)} Nothing was stored.`);
+            } else if (error.status === 413) {
+              setFormError(`${asSentence(error.message)} Nothing was stored.`);
+            } else {
+              setFormError(e.formError ?? (Object.keys(e.fieldErrors).length ? 'Some fields need a look: see the messages beside them.' : asSentence(error.message)));
+            }
             return;
           }
           setFormError(isApiError(error) ? error.message : 'The upload failed in the page itself. Reload and try again.');
@@ -490,7 +497,9 @@ export function CaptureUpload({ benchId, lasers, defaultLaserId, onAnalysed }: C
               )}
               {analysis.isError && <FormAlert message={isApiError(analysis.error) ? analysis.error.message : 'The analysis could not be followed.'} />}
             </div>
-            <FormAlert message={formError} />
+            <div data-testid="upload-error">
+              <FormAlert message={formError} />
+            </div>
           </div>
         </div>
 

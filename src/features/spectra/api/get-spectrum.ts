@@ -10,8 +10,11 @@ import { apiPaths } from '../../../config/paths';
 import { api } from '../../../lib/api-client';
 import { spectraKeys } from './keys';
 
-/** points asked for the plot: enough to show narrow spurs at 1024–1600 px wide */
-export const DISPLAY_POINTS = 800;
+/**
+ * points asked for the plot: the API's default, about 90 per decade — as fine as the eye resolves at
+ * 1024–1600 px, and each log bin still averages several Welch bins at high frequencies
+ */
+export const DISPLAY_POINTS = 400;
 
 export function getSpectrum(analysisId: string, view: SpectrumView, points: number, signal?: AbortSignal): Promise<SpectrumResponse> {
   return api.get<SpectrumResponse>(apiPaths.analyses.spectrum(analysisId, { view, points }), { signal });

@@ -67,7 +67,9 @@ export function LaserSpectra({ benchId, laserId, canWrite }: { benchId: string; 
             <th scope="col" className="py-2 pr-4 font-medium">Date</th>
             <th scope="col" className="py-2 pr-4 font-medium">Capture</th>
             <th scope="col" className="py-2 pr-4 text-right font-medium">Intrinsic</th>
-            <th scope="col" className="py-2 pr-4 text-right font-medium">β-line</th>
+            <th scope="col" className="py-2 pr-4 text-right font-medium">
+              <span className="normal-case">β</span>-line
+            </th>
             <th scope="col" className="py-2 pr-4 text-right font-medium">FWHM</th>
             <th scope="col" className="py-2 pr-4 text-right font-medium">Current</th>
             <th scope="col" className="py-2 pr-4 text-right font-medium">Temp.</th>

@@ -4,8 +4,9 @@
  *   reader (io/: CSV | NPY | WAV | raw, format sniffed unless given)
  *     → frequency stage (phase/frequency-stage.ts: unwrap | analytic signal → ν in Hz)
  *     → log-frequency accumulator (spectrum/log-frequency.ts): a cascade of decimate-by-2 stages, each
- *       a Welch accumulator with the stated window, segment L and overlap; its stage 0 is the plain
- *       Welch estimate at full rate, the deeper stages reach down to about 1/T0. One pass serves both:
+ *       a Welch accumulator with the stated window and overlap; its stage 0 is the plain Welch
+ *       estimate at full rate with the stated segment L, the deeper stages (segments as the cascade
+ *       chooses) reach down to about 1/T0. One pass serves both:
  *       the stitched spectrum (every Welch bin, from the finest stage serving it) and, binned to 30
  *       points per decade, the log view the figures are read from.
  *     → figures: noise model (noise/model-fit.ts), spurs on the stitched spectrum (noise/spurs.ts),

@@ -63,8 +63,10 @@ describe('analyzeCapture on white frequency noise h0 = 1e4 Hz²/Hz (IQ .npy, fs 
   });
 
   it('analyzeCapture reports the Welch settings: default segment 65536 (≤ N/8, capped), K = ⌊(n − L)/D⌋ + 1 over n = N − 1 frequency samples', async () => {
-    const { report } = await analyzeCapture({ chunks: [IQ] }, { sampleRateHz: FS, overlap: 0.5 });
+    const { report, spectrum } = await analyzeCapture({ chunks: [IQ] }, { sampleRateHz: FS, overlap: 0.5 });
     const L = 65536; // N/8 = 131072, capped at 65536
+    // the full-rate stage of the cascade is that Welch estimate
+    expect(spectrum.averages[spectrum.stage.indexOf(0)]).toBe(report.settings.averages);
     expect(report.settings).toMatchObject({ window: 'hann', segment: L, overlap: 0.5 });
     expect(report.settings.averages).toBe(Math.floor((N - 1 - L) / (L / 2)) + 1);
     // ENBW of the periodic Hann window: 1.5 bins (METHODS 1.2)

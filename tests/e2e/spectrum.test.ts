@@ -143,6 +143,8 @@ describe('spectrum page in chromium', () => {
     expect(await rate.evaluate((el) => el === document.activeElement)).toBe(true);
     await rate.fill(String(SAMPLE_RATE_HZ));
     await page.getByText('= 250 kHz').waitFor();
+    // with the rate the preview knows the record length: 131 072 samples at 250 kHz = 524 ms
+    await page.getByTestId('capture-preview').getByText('524 ms').waitFor();
   });
 
   it('the upload shows its bytes, then the analysis stages, and opens the spectrum when done', async () => {
@@ -228,6 +230,23 @@ describe('spectrum page in chromium', () => {
     // ascending frequencies, non-negative densities
     expect(rows.every((r, i) => i === 0 || r[0] > rows[i - 1][0])).toBe(true);
     expect(rows.every((r) => r[1] >= 0)).toBe(true);
+  });
+
+  it('the JSON export holds the figures and the settings they came from', async () => {
+    const { page } = browser;
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'JSON' }).click()]);
+    const file = path.join(screenshotDir, 'spectrum-export.json');
+    await download.saveAs(file);
+    const doc = JSON.parse(readFileSync(file, 'utf8')) as {
+      figures: { intrinsicLinewidthHz: number; betaLine: { observationTimeS: number } };
+      settings: { segment: number; window: string };
+      fileName: string;
+    };
+    expect(doc.fileName).toBe(path.basename(SAMPLE));
+    expect(doc.settings.segment).toBe(SEGMENT);
+    expect(doc.settings.window).toBe('hann');
+    const shown = squash(await page.getByTestId('intrinsic-linewidth').innerText());
+    expect(squash(formatSI(doc.figures.intrinsicLinewidthHz, 'Hz').text)).toBe(shown);
   });
 
   it('the SVG and PNG exports are standalone files of the plot', async () => {

@@ -37,7 +37,14 @@ function fmtSample(v: number): string {
   return s.replace('-', '\u2212');
 }
 
-export function CapturePreviewPanel({ state, fileSize }: { state: FilePreviewState; fileSize: number | null }) {
+export interface CapturePreviewPanelProps {
+  state: FilePreviewState;
+  fileSize: number | null;
+  /** the sample rate typed in the form, for the record length when the file states none */
+  givenRateHz?: number | null;
+}
+
+export function CapturePreviewPanel({ state, fileSize, givenRateHz = null }: CapturePreviewPanelProps) {
   if (state.status === 'none') {
     return (
       <p className="text-sm leading-relaxed text-ink-faint">
@@ -57,8 +64,8 @@ export function CapturePreviewPanel({ state, fileSize }: { state: FilePreviewSta
     );
   }
   const p = state.preview;
-  const duration =
-    p.estimatedSamples !== undefined && p.sampleRateHz ? formatSI(p.estimatedSamples / p.sampleRateHz, 's', { significant: 3 }).text : null;
+  const rate = givenRateHz && givenRateHz > 0 ? givenRateHz : p.sampleRateHz;
+  const duration = p.estimatedSamples !== undefined && rate ? formatSI(p.estimatedSamples / rate, 's', { significant: 3 }).text : null;
   const fields = Object.entries(p.fields).filter(([k]) => k !== 'kindHint');
   const columns = p.channelCount === 2 ? ['I', 'Q'] : ['value'];
   return (

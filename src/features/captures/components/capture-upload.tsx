@@ -306,11 +306,11 @@ export function CaptureUpload({ benchId, lasers, defaultLaserId, onAnalysed }: C
 
   const laserOptions = [{ value: '', label: 'No laser named' }, ...[...lasers].sort((a, b) => a.name.localeCompare(b.name)).map((l) => ({ value: l.id, label: l.name }))];
   const kindOptions = [
-    { value: '', label: preview?.kindGuess ? `As the file says (${KIND_LABELS[preview.kindGuess]})` : 'Choose…' },
+    { value: '', label: preview?.kindGuess ? `As the file says: ${KIND_LABELS[preview.kindGuess]}` : 'Choose…' },
     ...CaptureKind.options.map((k) => ({ value: k, label: KIND_LABELS[k] })),
   ];
   const formatOptions = [
-    { value: '', label: preview ? `As recognised (${FORMAT_LABELS[preview.format]})` : 'Recognise from the file' },
+    { value: '', label: preview ? `As recognised: ${FORMAT_LABELS[preview.format]}` : 'Recognise from the file' },
     ...CaptureFormat.options.map((f) => ({ value: f, label: FORMAT_LABELS[f] })),
   ];
   const setupOptions = [{ value: '', label: 'Not said' }, ...CaptureSetup.options.map((s) => ({ value: s, label: SETUP_LABELS[s] }))];
@@ -506,7 +506,7 @@ export function CaptureUpload({ benchId, lasers, defaultLaserId, onAnalysed }: C
         <aside className="min-w-0">
           <div className="sticky top-6 rounded-[4px] border border-rule bg-paper-card px-5 pt-4 pb-5">
             <h2 className="mb-3 text-base font-semibold tracking-tight text-ink">What the file says</h2>
-            <CapturePreviewPanel state={previewState} fileSize={file?.size ?? null} />
+            <CapturePreviewPanel state={previewState} fileSize={file?.size ?? null} givenRateHz={Number(num(form.sampleRateHz)) || null} />
           </div>
         </aside>
       </div>

@@ -268,21 +268,21 @@ export function overlappingAllanEdf(noiseType: AllanNoiseType, phasePoints: numb
 
 // ---- χ² quantiles (regularised incomplete gamma; Numerical Recipes 3rd ed. §6.1-6.2) ----
 
+// the Numerical Recipes coefficients, written as the doubles they round to
 const LANCZOS = [
-  57.1562356658629235, -59.5979603554754912, 14.1360979747417471, -0.491913816097620199, 0.339946499848118887e-4,
-  0.465236289270485756e-4, -0.983744753048795646e-4, 0.158088703224912494e-3, -0.210264441724104883e-3,
-  0.217439618115212643e-3, -0.164318106536763890e-3, 0.844182239838527433e-4, -0.261908384015814087e-4,
-  0.368991826595316234e-5,
+  57.15623566586292, -59.59796035547549, 14.136097974741746, -0.4919138160976202, 3.399464998481189e-5, 4.652362892704858e-5,
+  -9.837447530487956e-5, 1.580887032249125e-4, -2.1026444172410488e-4, 2.1743961811521265e-4, -1.643181065367639e-4,
+  8.441822398385275e-5, -2.6190838401581408e-5, 3.6899182659531625e-6,
 ];
 
 /** ln Γ(x), x > 0 (Lanczos, g = 607/128, 14 terms; relative error < 1e-15 — Numerical Recipes 3rd ed. §6.1). */
 export function logGamma(x: number): number {
   let y = x;
-  const tmp = x + 5.24218750000000000; // x + g + ½ with g = 607/128
+  const tmp = x + 5.2421875; // x + g + ½ with g = 607/128
   const t = (x + 0.5) * Math.log(tmp) - tmp;
-  let ser = 0.999999999999997092;
+  let ser = 0.9999999999999971;
   for (let j = 0; j < 14; j++) ser += LANCZOS[j] / ++y;
-  return t + Math.log((2.5066282746310005 * ser) / x);
+  return t + Math.log((2.5066282746310007 * ser) / x); // √(2π)
 }
 
 /** Regularised lower incomplete gamma P(a, x). */

@@ -127,6 +127,7 @@ export function SpectrumPlot({
   const uid = useId().replace(/[^a-zA-Z0-9]/g, '');
   const clipId = `plot-clip-${uid}`;
   const helpId = `plot-help-${uid}`;
+  const summaryId = `plot-summary-${uid}`;
   const info = VIEW_INFO[view];
 
   const [zoom, setZoom] = useState<Zoom>({ x: null, y: null, view });
@@ -397,7 +398,7 @@ export function SpectrumPlot({
         ref={wrapRef}
         role="group"
         aria-label={label}
-        aria-describedby={helpId}
+        aria-describedby={`${summaryId} ${helpId}`}
         tabIndex={0}
         onKeyDown={onPlotKey}
         className="relative w-full rounded-[3px] focus-visible:outline-offset-4"
@@ -411,8 +412,6 @@ export function SpectrumPlot({
             viewBox={`0 0 ${width} ${height}`}
             xmlns="http://www.w3.org/2000/svg"
             fontFamily={T.sans}
-            role="img"
-            aria-label={`${label}: ${info.symbol} (${info.unit}) against offset frequency`}
             className="block touch-none select-none"
             onPointerMove={onMove}
             onPointerUp={onUp}
@@ -429,7 +428,7 @@ export function SpectrumPlot({
             <rect x={0} y={0} width={width} height={height} fill={T.paper} />
 
             {/* legend */}
-            <g transform={`translate(${MARGIN.left},${14})`} fontSize={TICK_FONT} fill={T.inkSoft}>
+            <g transform={`translate(${MARGIN.left},${14})`} fontSize={TICK_FONT} fill={T.inkSoft} aria-hidden="true">
               {legendItems.map((item) => (
                 <g key={item.key} transform={`translate(${item.at},0)`}>
                   {item.swatch === 'line' && <line x1={0} x2={22} y1={0} y2={0} stroke={T.trace} strokeWidth={1.8} />}
@@ -446,93 +445,97 @@ export function SpectrumPlot({
             </g>
 
             <g transform={`translate(${MARGIN.left},${MARGIN.top})`}>
-              {/* grid */}
-              <g data-layer="grid">
-                {xTicks.map((t) => (
-                  <line key={`gx${t.value}`} x1={x(t.value)} x2={x(t.value)} y1={0} y2={ih} stroke={t.major ? T.grid : T.gridMinor} strokeWidth={t.major ? 0.9 : 0.6} />
-                ))}
-                {yTicks.map((t) => (
-                  <line key={`gy${t.value}`} x1={0} x2={iw} y1={y(t.value)} y2={y(t.value)} stroke={t.major ? T.grid : T.gridMinor} strokeWidth={t.major ? 0.9 : 0.6} />
-                ))}
-              </g>
+              {/* the drawing is described in words beside it (summaryId); only the band's sliders are for assistive technology */}
+              <g aria-hidden="true">
+                {/* grid */}
+                <g data-layer="grid">
+                  {xTicks.map((t) => (
+                    <line key={`gx${t.value}`} x1={x(t.value)} x2={x(t.value)} y1={0} y2={ih} stroke={t.major ? T.grid : T.gridMinor} strokeWidth={t.major ? 0.9 : 0.6} />
+                  ))}
+                  {yTicks.map((t) => (
+                    <line key={`gy${t.value}`} x1={0} x2={iw} y1={y(t.value)} y2={y(t.value)} stroke={t.major ? T.grid : T.gridMinor} strokeWidth={t.major ? 0.9 : 0.6} />
+                  ))}
+                </g>
 
-              <g clipPath={`url(#${clipId})`}>
-                {/* white-floor band */}
-                {bandPx && (
-                  <rect x={bandPx.lo} y={0} width={Math.max(0, bandPx.hi - bandPx.lo)} height={ih} fill={T.floor} fillOpacity={0.17} data-layer="band" />
-                )}
-                {/* area above β */}
-                {abovePaths.map((d, i) => (
-                  <path key={`a${i}`} d={d} fill={T.beta} fillOpacity={0.13} stroke="none" data-layer="above-beta" />
-                ))}
-                {/* 1/T₀ */}
+                <g clipPath={`url(#${clipId})`}>
+                  {/* white-floor band */}
+                  {bandPx && (
+                    <rect x={bandPx.lo} y={0} width={Math.max(0, bandPx.hi - bandPx.lo)} height={ih} fill={T.floor} fillOpacity={0.17} data-layer="band" />
+                  )}
+                  {/* area above β */}
+                  {abovePaths.map((d, i) => (
+                    <path key={`a${i}`} d={d} fill={T.beta} fillOpacity={0.13} stroke="none" data-layer="above-beta" />
+                  ))}
+                  {/* 1/T₀ */}
+                  {tInv && tInv >= xDomain[0] && tInv <= xDomain[1] && (
+                    <line x1={x(tInv)} x2={x(tInv)} y1={0} y2={ih} stroke={T.inkFaint} strokeWidth={0.8} strokeDasharray="2 3" />
+                  )}
+                  {betaPath && <path d={betaPath} fill="none" stroke={T.beta} strokeWidth={1.4} strokeDasharray="6 4" data-layer="beta" />}
+                  {modelPath && <path d={modelPath} fill="none" stroke={T.model} strokeWidth={1.5} strokeOpacity={0.95} data-layer="model" />}
+                  <path d={path} fill="none" stroke={T.trace} strokeWidth={1.6} strokeLinejoin="round" data-layer="trace" />
+                  {floorPath && <path d={floorPath} fill="none" stroke={T.floorLine} strokeWidth={2} strokeDasharray="1 0" strokeOpacity={0.9} data-layer="floor" />}
+                  {spurMarks.map((s) => (
+                    <path
+                      key={`s${s.frequencyHz}`}
+                      d={`M${s.px - 4.5},${s.py - 13} L${s.px + 4.5},${s.py - 13} L${s.px},${s.py - 5} Z`}
+                      fill={T.spur}
+                      stroke={T.paper}
+                      strokeWidth={0.6}
+                      data-layer="spur"
+                    >
+                      <title>
+                        {s.count > 1
+                          ? `${s.count} spurs from ${formatSI(s.loHz, 'Hz').text} to ${formatSI(s.hiHz, 'Hz').text}, up to ${formatFixed(s.heightDb, 'dB', 1).text} above the noise model`
+                          : `spur at ${formatSI(s.frequencyHz, 'Hz').text}, ${formatFixed(s.heightDb, 'dB', 1).text} above the noise model`}
+                      </title>
+                    </path>
+                  ))}
+                </g>
+
                 {tInv && tInv >= xDomain[0] && tInv <= xDomain[1] && (
-                  <line x1={x(tInv)} x2={x(tInv)} y1={0} y2={ih} stroke={T.inkFaint} strokeWidth={0.8} strokeDasharray="2 3" />
+                  <text x={x(tInv) + 4} y={11} fontSize={TICK_FONT} fill={T.inkFaint} fontFamily={T.mono}>
+                    1/T₀
+                  </text>
                 )}
-                {betaPath && <path d={betaPath} fill="none" stroke={T.beta} strokeWidth={1.4} strokeDasharray="6 4" data-layer="beta" />}
-                {modelPath && <path d={modelPath} fill="none" stroke={T.model} strokeWidth={1.5} strokeOpacity={0.95} data-layer="model" />}
-                <path d={path} fill="none" stroke={T.trace} strokeWidth={1.6} strokeLinejoin="round" data-layer="trace" />
-                {floorPath && <path d={floorPath} fill="none" stroke={T.floorLine} strokeWidth={2} strokeDasharray="1 0" strokeOpacity={0.9} data-layer="floor" />}
-                {spurMarks.map((s) => (
-                  <path
-                    key={`s${s.frequencyHz}`}
-                    d={`M${s.px - 4.5},${s.py - 13} L${s.px + 4.5},${s.py - 13} L${s.px},${s.py - 5} Z`}
-                    fill={T.spur}
-                    stroke={T.paper}
-                    strokeWidth={0.6}
-                    data-layer="spur"
-                  >
-                    <title>
-                      {s.count > 1
-                        ? `${s.count} spurs from ${formatSI(s.loHz, 'Hz').text} to ${formatSI(s.hiHz, 'Hz').text}, up to ${formatFixed(s.heightDb, 'dB', 1).text} above the noise model`
-                        : `spur at ${formatSI(s.frequencyHz, 'Hz').text}, ${formatFixed(s.heightDb, 'dB', 1).text} above the noise model`}
-                    </title>
-                  </path>
-                ))}
-              </g>
 
-              {tInv && tInv >= xDomain[0] && tInv <= xDomain[1] && (
-                <text x={x(tInv) + 4} y={11} fontSize={TICK_FONT} fill={T.inkFaint} fontFamily={T.mono}>
-                  1/T₀
+                {/* frame and axes */}
+                <rect x={0} y={0} width={iw} height={ih} fill="none" stroke={T.frame} strokeWidth={1} />
+                <g fontFamily={T.mono} fontSize={TICK_FONT} fill={T.inkSoft}>
+                  {xTicks.map((t) => (
+                    <g key={`tx${t.value}`} transform={`translate(${x(t.value)},${ih})`}>
+                      <line y1={0} y2={t.major ? 5 : 3} stroke={T.frame} />
+                      {t.label && (
+                        <text y={17} textAnchor="middle">
+                          {t.label}
+                        </text>
+                      )}
+                    </g>
+                  ))}
+                  {yTicks.map((t) => (
+                    <g key={`ty${t.value}`} transform={`translate(0,${y(t.value)})`}>
+                      <line x1={0} x2={t.major ? -5 : -3} stroke={T.frame} />
+                      {t.label && (
+                        <text x={-8} dy="0.34em" textAnchor="end">
+                          {t.label}
+                        </text>
+                      )}
+                    </g>
+                  ))}
+                </g>
+                <text x={iw / 2} y={ih + 38} textAnchor="middle" fontSize={TITLE_FONT} fill={T.ink}>
+                  offset frequency f (Hz)
                 </text>
-              )}
-
-              {/* frame and axes */}
-              <rect x={0} y={0} width={iw} height={ih} fill="none" stroke={T.frame} strokeWidth={1} />
-              <g fontFamily={T.mono} fontSize={TICK_FONT} fill={T.inkSoft}>
-                {xTicks.map((t) => (
-                  <g key={`tx${t.value}`} transform={`translate(${x(t.value)},${ih})`}>
-                    <line y1={0} y2={t.major ? 5 : 3} stroke={T.frame} />
-                    {t.label && (
-                      <text y={17} textAnchor="middle">
-                        {t.label}
-                      </text>
-                    )}
-                  </g>
-                ))}
-                {yTicks.map((t) => (
-                  <g key={`ty${t.value}`} transform={`translate(0,${y(t.value)})`}>
-                    <line x1={0} x2={t.major ? -5 : -3} stroke={T.frame} />
-                    {t.label && (
-                      <text x={-8} dy="0.34em" textAnchor="end">
-                        {t.label}
-                      </text>
-                    )}
-                  </g>
-                ))}
-              </g>
-              <text x={iw / 2} y={ih + 38} textAnchor="middle" fontSize={TITLE_FONT} fill={T.ink}>
-                offset frequency f (Hz)
-              </text>
-              <text transform={`translate(${-MARGIN.left + 16},${ih / 2}) rotate(-90)`} textAnchor="middle" fontSize={TITLE_FONT} fill={T.ink}>
-                <SvgSymbol text={`${info.symbol} (${info.unit})`} fontSize={TITLE_FONT} />
-              </text>
-
-              {n < 2 && (
-                <text x={iw / 2} y={ih / 2} textAnchor="middle" fontSize={13} fill={T.inkFaint}>
-                  No points to draw in this view.
+                <text transform={`translate(${-MARGIN.left + 16},${ih / 2}) rotate(-90)`} textAnchor="middle" fontSize={TITLE_FONT} fill={T.ink}>
+                  <SvgSymbol text={`${info.symbol} (${info.unit})`} fontSize={TITLE_FONT} />
                 </text>
-              )}
+
+                {n < 2 && (
+                  <text x={iw / 2} y={ih / 2} textAnchor="middle" fontSize={13} fill={T.inkFaint}>
+                    No points to draw in this view.
+                  </text>
+                )}
+
+              </g>
 
               {/* interaction layers: left out of exports */}
               <g data-export="omit">
@@ -633,6 +636,14 @@ export function SpectrumPlot({
           )}
         </div>
       </div>
+      <p id={summaryId} className="sr-only">
+        {n >= 2
+          ? `${info.name}, ${info.symbol.replace('_', '')} in ${info.unit}, from ${formatSI(pts.f[0], 'Hz').text} to ${formatSI(pts.f[n - 1], 'Hz').text}` +
+            (band ? `; white-floor band ${formatSI(band[0], 'Hz').text} to ${formatSI(band[1], 'Hz').text}` : '') +
+            (spurMarks.length ? `; ${spurMarks.length} spur ${spurMarks.length === 1 ? 'mark' : 'marks'}` : '') +
+            '. The figures below give the numbers.'
+          : 'No points to draw in this view.'}
+      </p>
       <p id={helpId} className="mt-2 flex flex-wrap gap-x-4 gap-y-1 text-xs text-ink-faint">
         <span>Drag across the plot to zoom; double-click or press 0 to see it all{zoomed ? ' (zoomed now)' : ''}.</span>
         <span>With the plot focused, ← → step the read-out, + − zoom.</span>

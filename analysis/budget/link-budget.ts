@@ -64,6 +64,8 @@ export interface LinkBudgetResult {
   phaseIncrementVarianceRad2: number;
   /** σ_e² after carrier recovery (when a carrier-recovery model is given), rad² */
   residualPhaseErrorRad2?: number;
+  /** Δν_eq: the Lorentzian linewidth leaving the same σ_e² with this estimator (with a carrier-recovery model), Hz */
+  equivalentWienerLinewidthHz?: number;
   carrierRecovery?: CarrierRecovery;
   warnings: string[];
 }
@@ -144,12 +146,15 @@ function evaluate(r: ResolvedBudget): LinkBudgetResult {
   const warnings: string[] = [];
   let combined = r.lorentzianSumHz;
   let residual: number | undefined;
+  let equivalent: number | undefined;
   if (r.carrierRecovery !== null) {
     if (r.noise === null) {
       residual = 0; // no phase noise at all
+      equivalent = 0;
     } else {
       const e = residualPhaseError(r.noise, r.carrierRecovery, r.symbolRateBaud);
       residual = e.varianceRad2;
+      equivalent = e.equivalentLinewidthHz;
       if (r.hasSpectrum) combined = e.equivalentLinewidthHz;
     }
   }
@@ -191,7 +196,9 @@ function evaluate(r: ResolvedBudget): LinkBudgetResult {
     verdict,
     caution: BUDGET_CAUTION,
     phaseIncrementVarianceRad2: 2 * Math.PI * product, // σ_p² = 2πΔνT_s
-    ...(residual !== undefined ? { residualPhaseErrorRad2: residual, carrierRecovery: r.carrierRecovery as CarrierRecovery } : {}),
+    ...(residual !== undefined
+      ? { residualPhaseErrorRad2: residual, equivalentWienerLinewidthHz: equivalent, carrierRecovery: r.carrierRecovery as CarrierRecovery }
+      : {}),
     warnings,
   };
 }

@@ -122,6 +122,7 @@ describe('evaluateLinkBudget (METHODS 4.1, 7.1-7.3)', () => {
   it('with a carrier-recovery model the residual σ_e² is reported (M = 21, 100 kHz, 32 GBd → 3.4283e-5 rad²)', () => {
     const r = evaluateLinkBudget({ format: '64QAM', symbolRateBaud: 32e9, linewidthHz: 1e5, carrierRecovery: { kind: 'block-average', blockLength: 21 } });
     expect(rel(r.residualPhaseErrorRad2 as number, 3.4283e-5)).toBeLessThan(1e-4);
+    expect(rel(r.equivalentWienerLinewidthHz as number, 1e5)).toBeLessThan(1e-9);
   });
 
   it('a transmitter given as a measured spectrum: the budget uses the equivalent Wiener linewidth of S_ν,Tx + Δν_LO/π', () => {

@@ -174,11 +174,13 @@ describe('spectrum page in chromium', () => {
     // the radios are visually hidden inside their labels: a person clicks the label
     await page.locator('label', { has: page.getByRole('radio', { name: /L\(f\)/ }) }).click();
     await page.waitForURL(/view=dbc/);
-    const svgText = await page.getByTestId('spectrum-plot').locator('svg').first().textContent();
-    expect(svgText).toContain('dBc/Hz');
+    // the URL changes first; the plot redraws on the next render
+    const plotSvg = page.getByTestId('spectrum-plot').locator('svg').first();
+    await expect.poll(() => plotSvg.textContent(), { timeout: 10_000 }).toContain('dBc/Hz');
     await screenshots(page, 'spectrum-03-dbc');
     await page.locator('label', { has: page.getByRole('radio', { name: /Sν — frequency-noise PSD/ }) }).click();
     await page.waitForURL((u) => !u.search.includes('view='));
+    await expect.poll(() => plotSvg.textContent(), { timeout: 10_000 }).toContain('Hz²/Hz');
   });
 
   it('hovering reads out frequency and value; a drag zooms and a double-click goes back', async () => {
@@ -187,8 +189,9 @@ describe('spectrum page in chromium', () => {
     const box = await overlay.boundingBox();
     if (!box) throw new Error('the plot has no overlay');
     await page.mouse.move(box.x + box.width * 0.55, box.y + box.height * 0.5);
-    const readout = squash(await page.getByTestId('plot-readout').innerText());
-    expect(readout).toMatch(/^f \d[\d.]* [kMG]?Hz S ?ν \d/);
+    const readoutText = async () => squash(await page.getByTestId('plot-readout').innerText());
+    await expect.poll(readoutText, { timeout: 10_000 }).toMatch(/^f \d[\d.]* [kMG]?Hz S ?ν \d/);
+    const readout = await readoutText();
     expect(readout).toContain('Hz²/Hz');
     await page.mouse.move(box.x + box.width * 0.3, box.y + 20);
     await page.mouse.down();

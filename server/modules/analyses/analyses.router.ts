@@ -14,7 +14,6 @@ import {
   SpectrumQuery,
   type AnalysisResponse,
   type LaserSpectraResponse,
-  type SpectrumResponse,
 } from '../../contracts/analyses';
 import { routeParam } from '../../lib/route-param';
 import { benchAccessOf } from '../../middleware/bench-access';
@@ -34,7 +33,9 @@ export function createAnalysesRouter({ analyses }: AnalysesRouterDeps): Router {
 
   router.get('/analyses/:id/spectrum', requireUser, async (req, res) => {
     const query = SpectrumQuery.parse(req.query);
-    res.json((await analyses.spectrum(currentAuth(res).user.id, routeParam(req, 'id'), query)) satisfies SpectrumResponse);
+    // SpectrumResponse, serialised once per analysis, view and points
+    const json = await analyses.spectrumJson(currentAuth(res).user.id, routeParam(req, 'id'), query);
+    res.type('application/json').send(json);
   });
 
   router.get('/analyses/:id/series.csv', requireUser, async (req, res) => {

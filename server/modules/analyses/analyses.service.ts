@@ -34,7 +34,7 @@ import {
   requeueFailed,
   SUMMARY_COLUMNS,
 } from './analyses.repository';
-import { SeriesCache } from './series-cache';
+import { LruMap, SeriesCache } from './series-cache';
 import { spectrumResponse } from './spectrum-view';
 
 export interface AnalysesServiceDeps {
@@ -55,6 +55,7 @@ function notDone(status: string): AppError {
 export function createAnalysesService(deps: AnalysesServiceDeps) {
   const { db, storage } = deps;
   const cache = new SeriesCache(storage);
+  const replies = new LruMap<string, string>(512);
 
   async function load<C extends (typeof SUMMARY_COLUMNS)[number] | 'result' | 'series_key'>(
     userId: string,
@@ -67,12 +68,17 @@ export function createAnalysesService(deps: AnalysesServiceDeps) {
     return { row: row!, access };
   }
 
-  async function seriesOf(userId: string, analysisId: string) {
+  async function seriesKeyOf(userId: string, analysisId: string) {
     const { row, access } = await load(userId, analysisId, ['status', 'series_key'] as const);
     assertCaptureAction(access, 'captures.read');
     if (row.status !== 'done') throw notDone(row.status);
     if (!row.series_key) throw conflict('this analysis kept no series; start a new analysis of the capture');
-    return { key: row.series_key, series: await cache.get(row.series_key) };
+    return { key: row.series_key };
+  }
+
+  async function seriesOf(userId: string, analysisId: string) {
+    const { key } = await seriesKeyOf(userId, analysisId);
+    return { key, series: await cache.get(key) };
   }
 
   async function summaryAfterWrite(analysisId: string, benchId: string): Promise<Analysis> {
@@ -88,13 +94,20 @@ export function createAnalysesService(deps: AnalysesServiceDeps) {
       return toAnalysis(row, access.benchId);
     },
 
-    async spectrum(
-      userId: string,
-      analysisId: string,
-      query: { view: SpectrumView; points: number },
-    ): Promise<SpectrumResponse> {
-      const { series } = await seriesOf(userId, analysisId);
-      return spectrumResponse(series, query.view, query.points);
+    /**
+     * The spectrum reply as JSON text. A done analysis never changes, so replies are kept by series,
+     * view and points (the membership check still runs on every request).
+     */
+    async spectrumJson(userId: string, analysisId: string, query: { view: SpectrumView; points: number }): Promise<string> {
+      const { key } = await seriesKeyOf(userId, analysisId);
+      const replyKey = `${key}|${query.view}|${query.points}`;
+      let json = replies.get(replyKey);
+      if (json === undefined) {
+        const reply: SpectrumResponse = spectrumResponse(await cache.get(key), query.view, query.points);
+        json = JSON.stringify(reply);
+        replies.set(replyKey, json);
+      }
+      return json;
     },
 
     /** The full series as CSV text, streamed in slices. */

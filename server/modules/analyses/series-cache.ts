@@ -59,3 +59,24 @@ export class SeriesCache {
 }
 
 const sizeOf = (s: Series) => s.frequencyHz.byteLength + s.psd.byteLength;
+
+/** A Map that keeps at most `capacity` entries, dropping the least recently used. */
+export class LruMap<K, V> {
+  private readonly map = new Map<K, V>();
+  constructor(private readonly capacity: number) {}
+
+  get(key: K): V | undefined {
+    const v = this.map.get(key);
+    if (v !== undefined) {
+      this.map.delete(key);
+      this.map.set(key, v);
+    }
+    return v;
+  }
+
+  set(key: K, value: V): void {
+    this.map.delete(key);
+    this.map.set(key, value);
+    if (this.map.size > this.capacity) this.map.delete(this.map.keys().next().value as K);
+  }
+}

@@ -35,8 +35,8 @@ import { type FormatSource, SNIFF_BYTES, chooseFormat } from './io/sniff';
 import { betaLine } from './linewidth/beta-line';
 import { lineshape } from './linewidth/lineshape';
 import { whiteFloor } from './linewidth/white-floor';
-import { fitNoiseModel } from './noise/model-fit';
-import { findSpurs } from './noise/spurs';
+import { type NoiseModelFitResult, fitNoiseModel } from './noise/model-fit';
+import { type SpectralBump, type SpurLine, findSpectralFeatures } from './noise/spurs';
 import { createFrequencyStage } from './phase/frequency-stage';
 import { equivalentAverages } from './spectrum/equivalent-averages';
 import { logBinSpectrum } from './spectrum/log-binning';
@@ -51,7 +51,6 @@ import type {
   FrequencyStageSummary,
   LineshapeResult,
   LogFrequencySpectrum,
-  NoiseModelFit,
   ProgressFn,
   RawDtype,
   ReaderInfo,
@@ -133,9 +132,14 @@ export interface AnalysisReport {
   betaLine: { observationTimeS: number; crossingHz: number | null; areaHz2: number; linewidthHz: number };
   lineshape: { fwhmHz: number | null };
   noiseModel: { whiteHz2PerHz: number; flickerHz2: number; randomWalkHz3: number; cornerHz: number | null };
-  spurs: Spur[];
+  /** narrow lines above the noise model; powerHz2 = the line's power (an FM tone of peak deviation Δ: Δ²/2) */
+  spurs: (Spur & { powerHz2: number })[];
+  /** broad features above the noise model (relaxation-oscillation, servo bumps) */
+  bumps: { centerHz: number; widthHz: number; heightDb: number; powerHz2: number }[];
   carrier: { offsetHz: number; driftHzPerS: number; intermediateFrequencyHz?: number };
   warnings: string[];
+  /** how figures were obtained where a documented approximation or exclusion applied (not problems) */
+  notes: string[];
   spectrum?: { frequencyHz: number[]; frequencyNoiseHz2PerHz: number[] };
   logSpectrum?: { frequencyHz: number[]; frequencyNoiseHz2PerHz: number[]; averages: number[] };
 }
@@ -151,8 +155,9 @@ export interface CaptureAnalysis {
   whiteFloor: WhiteFloorResult;
   betaLine: BetaLineResult;
   lineshape: LineshapeResult;
-  noiseModel: NoiseModelFit;
-  spurs: Spur[];
+  noiseModel: NoiseModelFitResult;
+  spurs: SpurLine[];
+  bumps: SpectralBump[];
 }
 
 const KINDS: readonly CaptureKind[] = ['phase', 'iq', 'beat', 'frequency'];
@@ -417,7 +422,7 @@ export async function analyzeCapture(source: CaptureSource, options: AnalyzeOpti
   // from the deepest stage's first bins, biased low by the per-segment detrend (METHODS 1.4)
   const modelLowHz = Math.min(logSpectrum.reliableFromHz, topHz / 10);
   const noiseModel = fitNoiseModel(logSpectrum, { bandHz: [modelLowHz, topHz] });
-  const spurs = findSpurs(spectrum, noiseModel, { bandHz: [modelLowHz, topHz] });
+  const { spurs, bumps } = findSpectralFeatures(spectrum, noiseModel, { bandHz: [modelLowHz, topHz] });
   // the automatic floor search starts where every log point rests on ≥ FLOOR_MIN_AVERAGES segments,
   // but leaves at least a decade below the search's top (top/5)
   let firstSteady = 0;
@@ -437,6 +442,7 @@ export async function analyzeCapture(source: CaptureSource, options: AnalyzeOpti
   const shape = lineshape(logSpectrum, { observationTimeS: T0, maxHz: trustedTopHz, tailLevelHz2PerHz: floor.valueHz2PerHz });
 
   warnings.push(...summary.warnings, ...noiseModel.warnings, ...floor.warnings, ...beta.warnings, ...shape.warnings);
+  const notes = [...noiseModel.notes];
 
   const report: AnalysisReport = {
     input: {
@@ -470,13 +476,15 @@ export async function analyzeCapture(source: CaptureSource, options: AnalyzeOpti
       randomWalkHz3: noiseModel.randomWalkHz3,
       cornerHz: noiseModel.cornerHz,
     },
-    spurs: spurs.map((s) => ({ frequencyHz: s.frequencyHz, heightDb: s.heightDb })),
+    spurs: spurs.map((s) => ({ frequencyHz: s.frequencyHz, heightDb: s.heightDb, powerHz2: s.powerHz2 })),
+    bumps: bumps.map((b) => ({ centerHz: b.centerHz, widthHz: b.widthHz, heightDb: b.heightDb, powerHz2: b.powerHz2 })),
     carrier: {
       offsetHz: summary.carrierOffsetHz,
       driftHzPerS: summary.driftHzPerS,
       ...(summary.intermediateFrequencyHz !== undefined ? { intermediateFrequencyHz: summary.intermediateFrequencyHz } : {}),
     },
     warnings,
+    notes,
   };
   if (o.series) {
     report.spectrum = {
@@ -501,6 +509,7 @@ export async function analyzeCapture(source: CaptureSource, options: AnalyzeOpti
     lineshape: shape,
     noiseModel,
     spurs,
+    bumps,
   };
 }
 

@@ -3,13 +3,17 @@
  * `Spectrum` (one-sided S_ν in Hz²/Hz on an increasing grid, log or linear) and reads it between points.
  *
  * Usage:
- *   import { checkSpectrum, psdAt, firstIndexAtOrAbove } from '../linewidth/spectrum-grid';
+ *   import { checkSpectrum, psdAt, firstIndexAtOrAbove, pointAverages } from '../linewidth/spectrum-grid';
  *   checkSpectrum(spectrum, 'betaLine');          // throws AnalysisInputError naming the broken rule
  *   psdAt(spectrum.frequencyHz, spectrum.psd, 123.4);
+ *   pointAverages(spectrum, 'whiteFloor');        // the spectrum's `averages` (K per point) or null
  *
  * Interpolation: between two grid points with positive f and S the spectrum is read as the power law
  * through them (straight line on log-log axes: exact for every h_a·f^a term on its own, and the usual
  * way a log-frequency spectrum is drawn); where a value is 0 or f = 0 it falls back to a straight line.
+ * Averages: a Welch or log-frequency spectrum (WelchSpectrum, LogFrequencySpectrum) carries the number of
+ * segments K behind each point; each point is then ≈ S·χ²_ν/ν with ν ≈ 2K_eff, relative variance ≈ 1/K_eff
+ * (Phaseloom METHODS 1.3). `pointAverages` hands the per-point K to the fits, which weight by it.
  * Worked check: points (10 Hz, 100), (1000 Hz, 1) → psdAt(…, 100) = 10 (the 1/f law through them).
  */
 
@@ -40,6 +44,25 @@ export function checkSpectrum(spectrum: Spectrum, who: string): void {
       throw new AnalysisInputError(`${who}: S_ν values must be finite and >= 0, got ${s[i]}`, `point ${i}`);
     }
   }
+}
+
+/**
+ * The spectrum's per-point averages K_j when it carries them (`averages`: a Float64Array of one finite
+ * value >= 1 per point, as a log-frequency spectrum has); null for a plain Spectrum or a scalar count.
+ * Throws AnalysisInputError when an `averages` array is present but broken.
+ */
+export function pointAverages(spectrum: Spectrum, who: string): Float64Array | null {
+  const k = (spectrum as Spectrum & { averages?: unknown }).averages;
+  if (!(k instanceof Float64Array)) return null;
+  if (k.length !== spectrum.frequencyHz.length) {
+    throw new AnalysisInputError(`${who}: averages must have one value per point, got ${k.length} for ${spectrum.frequencyHz.length} points`);
+  }
+  for (let i = 0; i < k.length; i++) {
+    if (!Number.isFinite(k[i]) || k[i] < 1) {
+      throw new AnalysisInputError(`${who}: averages must be finite and >= 1, got ${k[i]}`, `point ${i}`);
+    }
+  }
+  return k;
 }
 
 /** Index of the first grid frequency >= x (f.length when none). Binary search. */

@@ -5,21 +5,35 @@
  *   import { fitNoiseModel, evaluateNoiseModel } from '../analysis/noise/model-fit';
  *   const m = fitNoiseModel(logSpectrum);                          // whole band of the spectrum
  *   const m2 = fitNoiseModel(logSpectrum, { bandHz: [10, 1e5] });
- *   m.whiteHz2PerHz; m.flickerHz2; m.randomWalkHz3; m.cornerHz; evaluateNoiseModel(m, 50)
+ *   m.whiteHz2PerHz; m.flickerHz2; m.randomWalkHz3; m.cornerHz; m.notes; evaluateNoiseModel(m, 50)
  *
  * Model: white FM a₀ [Hz²/Hz], flicker FM a₋₁ [Hz²], random-walk FM a₋₂ [Hz³] — the laser form of the
  * power-law model of IEEE Std 1139-2008 and Barnes et al., "Characterization of frequency stability",
  * IEEE Trans. Instrum. Meas. IM-20, 105 (1971) (h_a = ν0²·h_a^(y)). Corner f_c = a₋₁/a₀.
- * Fit (Phaseloom METHODS 3.2): each Welch bin is ≈ S·χ²_ν/ν, relative variance 1/K_eff, so the fit is
- * least squares in the linear domain with weights 1/S_model², iterated (iteratively reweighted least
- * squares — the quasi-likelihood fit of a gamma-distributed response with identity link, McCullagh &
- * Nelder, "Generalized Linear Models", 2nd ed. (1989), ch. 8). Each step solves the weighted problem
- * exactly under a_k >= 0 by trying every subset of the three terms (exact non-negative least squares
- * for three unknowns), each by its equilibrated normal equations (ml-matrix). Points standing more
- * than 10 dB above the model are spurs and are left out, then the fit is repeated (never fit dB
- * values: METHODS 3.2). Memory and time are O(points) per step.
- * Defaults: band = the whole spectrum above 0 Hz; first weights 1/S_data²; spur threshold 10 dB;
- * at most 100 reweighting steps; converged when no model value moves by more than 1e-10 relative.
+ * Fit (Phaseloom METHODS 1.3, 3.2): each point is ≈ S·χ²_ν/ν with ν ≈ 2K_j (K_j the Welch segments
+ * behind point j, summed over the merged bins of a log-binned point), relative variance ≈ c/K_j, so the
+ * fit is least squares in the linear domain with weights K_j/S_model², iterated (iteratively reweighted
+ * least squares — the quasi-likelihood fit of a gamma-distributed response with identity link,
+ * McCullagh & Nelder, "Generalized Linear Models", 2nd ed. (1989), ch. 8). A spectrum without per-point
+ * averages (a plain Spectrum) has K_j = 1. Each step solves the weighted problem exactly under a_k >= 0 by
+ * trying every subset of the three terms (exact non-negative least squares for three unknowns), each by
+ * its equilibrated normal equations (ml-matrix). Never fit dB values (METHODS 3.2).
+ * Terms: a term is kept only when it lowers the weighted squared residual Σ K_j(S_j − M_j)²/M_j² by more
+ * than c·ln(n) (n points used, c the variance scale below) — the Schwarz criterion (G. Schwarz,
+ * "Estimating the dimension of a model", Ann. Stat. 6(2), 461–464 (1978)) on the quasi-likelihood, so a
+ * few noisy low-frequency points do not buy a random-walk term that the spectrum does not hold.
+ * Outliers above the model (our rule, stated here): a point is left out when
+ *   S_j > M_j · max(10^(spurThresholdDb/10), 1 + outlierSigma·√(c/K_j)),
+ * i.e. it stands both clearly (≥ 3 dB) and improbably (≥ 5 standard deviations) above the model — mains
+ * lines, relaxation-oscillation and servo bumps, which the power law does not describe. c is the
+ * variance scale: the squared robust spread 1.4826·MAD of (S_j/M_j − 1)·√K_j over the band, at least 1
+ * when the points carry averages (K_eff ≤ K; merged Hann bins are correlated, so c is 1–2 in practice).
+ * Start: one fit with weights K_j/S_j² (data), in which lines weigh almost nothing; then rounds of
+ * (outlier set from the current model, reweighted fit to convergence) until the set stops changing.
+ * Only points above the model are left out; points below it stay (a notch is not a spur).
+ * Defaults: band = the whole spectrum above 0 Hz; spurThresholdDb 3; outlierSigma 5; at most 100
+ * reweighting steps per round and 20 rounds; converged when no model value moves by more than 1e-10
+ * relative. Memory and time are O(points) per step.
  * Worked check: S_ν = 10⁴ + 10⁶/f exactly → a₀ = 10⁴, a₋₁ = 10⁶, a₋₂ = 0, f_c = 100 Hz.
  */
 
@@ -27,7 +41,7 @@ import { Matrix, solve } from 'ml-matrix';
 
 import { AnalysisInputError } from '../errors';
 import type { NoiseModelFit, Spectrum } from '../types';
-import { checkSpectrum } from '../linewidth/spectrum-grid';
+import { checkSpectrum, pointAverages } from '../linewidth/spectrum-grid';
 
 export interface NoiseModelCoefficients {
   whiteHz2PerHz: number;
@@ -38,12 +52,23 @@ export interface NoiseModelCoefficients {
 export interface NoiseModelFitOptions {
   /** band [lo, hi] Hz; default the whole spectrum above 0 Hz */
   bandHz?: [number, number];
-  /** starting coefficients (first weights 1/M²); default weights from the data */
+  /** starting coefficients (first weights K/M²); default a first fit with weights K/S_data² */
   initial?: NoiseModelCoefficients;
-  /** points standing more than this many dB above the model are left out (spurs); default 10 */
+  /** a point is left out only when it stands at least this many dB above the model; default 3 */
   spurThresholdDb?: number;
-  /** iteration cap of the reweighting; default 100 */
+  /** … and at least this many standard deviations (√(c/K) relative); default 5 */
+  outlierSigma?: number;
+  /** iteration cap of the reweighting (per round); default 100 */
   maxIterations?: number;
+}
+
+/** The fit with what it left out, said as notes (informational) apart from the warnings. */
+export interface NoiseModelFitResult extends NoiseModelFit {
+  /** variance scale c: a point's relative variance is c/K_j */
+  varianceScale: number;
+  /** frequencies (Hz) of the points left out as standing above the model */
+  excludedHz: number[];
+  notes: string[];
 }
 
 interface ResolvedNoiseModelFitOptions {
@@ -51,12 +76,17 @@ interface ResolvedNoiseModelFitOptions {
   highHz: number;
   initial: NoiseModelCoefficients | null;
   spurRatio: number;
+  outlierSigma: number;
   maxIterations: number;
 }
 
 const TERMS = 3;
 const CONVERGED = 1e-10;
-const MAX_SPUR_ROUNDS = 5;
+const MAX_SPUR_ROUNDS = 20;
+/** more than this fraction of the band left out: the power law does not describe the spectrum */
+const EXCLUDED_WARNING_FRACTION = 0.25;
+/** MAD → standard deviation of a normal distribution */
+const MAD_TO_SD = 1.4826;
 
 /** S_ν(f) of a model, Hz²/Hz. */
 export function evaluateNoiseModel(model: NoiseModelCoefficients, frequencyHz: number): number {
@@ -87,23 +117,34 @@ function resolveNoiseModelFitOptions(spectrum: Spectrum, options: NoiseModelFitO
       throw new AnalysisInputError('fitNoiseModel: the initial model must have at least one positive coefficient');
     }
   }
-  const thresholdDb = options.spurThresholdDb ?? 10;
+  const thresholdDb = options.spurThresholdDb ?? 3;
   if (!Number.isFinite(thresholdDb) || thresholdDb <= 0) {
     throw new AnalysisInputError(`fitNoiseModel: spurThresholdDb must be a positive number, got ${thresholdDb}`);
+  }
+  const outlierSigma = options.outlierSigma ?? 5;
+  if (!(outlierSigma > 0)) {
+    throw new AnalysisInputError(`fitNoiseModel: outlierSigma must be a positive number (Infinity keeps every point), got ${outlierSigma}`);
   }
   const maxIterations = options.maxIterations ?? 100;
   if (!Number.isInteger(maxIterations) || maxIterations < 1) {
     throw new AnalysisInputError(`fitNoiseModel: maxIterations must be a positive integer, got ${maxIterations}`);
   }
-  return { lowHz, highHz, initial, spurRatio: Math.pow(10, thresholdDb / 10), maxIterations };
+  return { lowHz, highHz, initial, spurRatio: Math.pow(10, thresholdDb / 10), outlierSigma, maxIterations };
 }
 
 /**
- * min Σ wᵢ(Sᵢ − Σ a_k φ_k(fᵢ))², a >= 0, wᵢ = 1/Mᵢ², over the points with use[i]:
- * every subset of the terms solved by least squares (normal equations, columns equilibrated,
- * solved with ml-matrix), the best feasible one kept.
+ * min Σ wᵢ(Sᵢ − Σ a_k φ_k(fᵢ))² + termPenalty·(terms used), a >= 0, wᵢ = Kᵢ/Mᵢ², over the points
+ * with use[i]: every subset of the terms solved by least squares (normal equations, columns
+ * equilibrated, solved with ml-matrix), the best feasible one kept.
  */
-function weightedNonNegativeFit(f: Float64Array, s: Float64Array, model: Float64Array, use: Uint8Array): Float64Array {
+function weightedNonNegativeFit(
+  f: Float64Array,
+  s: Float64Array,
+  k: Float64Array,
+  model: Float64Array,
+  use: Uint8Array,
+  termPenalty: number,
+): Float64Array {
   // weighted normal equations G a = b for all three terms, and Σ w S² for the cost
   const g = new Float64Array(TERMS * TERMS);
   const b = new Float64Array(TERMS);
@@ -111,7 +152,7 @@ function weightedNonNegativeFit(f: Float64Array, s: Float64Array, model: Float64
   const phi = new Float64Array(TERMS);
   for (let i = 0; i < f.length; i++) {
     if (!use[i]) continue;
-    const w = 1 / (model[i] * model[i]);
+    const w = k[i] / (model[i] * model[i]);
     phi[0] = 1;
     phi[1] = 1 / f[i];
     phi[2] = phi[1] * phi[1];
@@ -156,6 +197,7 @@ function weightedNonNegativeFit(f: Float64Array, s: Float64Array, model: Float64
       cost -= 2 * coef[k] * b[k];
       for (let l = 0; l < TERMS; l++) cost += coef[k] * g[k * TERMS + l] * coef[l];
     }
+    cost += termPenalty * m;
     if (cost < bestCost) {
       bestCost = cost;
       best.set(coef);
@@ -164,11 +206,31 @@ function weightedNonNegativeFit(f: Float64Array, s: Float64Array, model: Float64
   return best;
 }
 
-export function fitNoiseModel(spectrum: Spectrum, options: NoiseModelFitOptions = {}): NoiseModelFit {
+/** Median of a scratch array (sorted in place). */
+function median(a: Float64Array): number {
+  a.sort();
+  const n = a.length;
+  return n % 2 === 1 ? a[n >> 1] : 0.5 * (a[n / 2 - 1] + a[n / 2]);
+}
+
+/** Variance scale c: (1.4826·MAD of (S/M − 1)·√K)², at least 1 when the points carry averages. */
+function varianceScale(s: Float64Array, k: Float64Array, model: Float64Array, hasAverages: boolean): number {
+  const n = s.length;
+  const r = new Float64Array(n);
+  for (let i = 0; i < n; i++) r[i] = (s[i] / model[i] - 1) * Math.sqrt(k[i]);
+  const mid = median(Float64Array.from(r));
+  for (let i = 0; i < n; i++) r[i] = Math.abs(r[i] - mid);
+  const sd = MAD_TO_SD * median(r);
+  return hasAverages ? Math.max(1, sd * sd) : sd * sd;
+}
+
+export function fitNoiseModel(spectrum: Spectrum, options: NoiseModelFitOptions = {}): NoiseModelFitResult {
   const o = resolveNoiseModelFitOptions(spectrum, options);
   const warnings: string[] = [];
+  const notes: string[] = [];
   const fAll = spectrum.frequencyHz;
   const sAll = spectrum.psd;
+  const kAll = pointAverages(spectrum, 'fitNoiseModel');
   const picked: number[] = [];
   for (let i = 0; i < fAll.length; i++) if (fAll[i] > 0 && fAll[i] >= o.lowHz && fAll[i] <= o.highHz) picked.push(i);
   if (picked.length < TERMS + 1) {
@@ -179,10 +241,12 @@ export function fitNoiseModel(spectrum: Spectrum, options: NoiseModelFitOptions 
   const n = picked.length;
   const f = new Float64Array(n);
   const s = new Float64Array(n);
+  const k = new Float64Array(n);
   let mean = 0;
   for (let r = 0; r < n; r++) {
     f[r] = fAll[picked[r]];
     s[r] = sAll[picked[r]];
+    k[r] = kAll ? kAll[picked[r]] : 1;
     mean += s[r] / n;
   }
   if (!(mean > 0)) throw new AnalysisInputError('fitNoiseModel: S_ν is zero everywhere in the band');
@@ -190,23 +254,54 @@ export function fitNoiseModel(spectrum: Spectrum, options: NoiseModelFitOptions 
 
   const model = new Float64Array(n);
   const modelOf = (c: Float64Array, i: number) => c[0] + c[1] / f[i] + c[2] / (f[i] * f[i]);
-  if (o.initial) {
-    const c0 = Float64Array.of(o.initial.whiteHz2PerHz, o.initial.flickerHz2, o.initial.randomWalkHz3);
-    for (let i = 0; i < n; i++) model[i] = Math.max(modelOf(c0, i), floor);
-  } else {
-    for (let i = 0; i < n; i++) model[i] = Math.max(s[i], floor);
-  }
   const use = new Uint8Array(n).fill(1);
-  let coef: Float64Array = new Float64Array(TERMS);
+  let coef: Float64Array;
   let iterations = 0;
+  if (o.initial) {
+    coef = Float64Array.of(o.initial.whiteHz2PerHz, o.initial.flickerHz2, o.initial.randomWalkHz3);
+  } else {
+    // start: weights K/S² from the data — points far above (lines) weigh almost nothing
+    for (let i = 0; i < n; i++) model[i] = Math.max(s[i], floor);
+    coef = weightedNonNegativeFit(f, s, k, model, use, 0);
+    iterations++;
+  }
+  for (let i = 0; i < n; i++) model[i] = Math.max(modelOf(coef, i), floor);
+
+  // outlier set from the current model: S > M·max(ratio, 1 + z·√(c/K))
+  let scale = varianceScale(s, k, model, kAll !== null);
+  const outliers = (): { set: Uint8Array; count: number } => {
+    const set = new Uint8Array(n);
+    let count = 0;
+    for (let i = 0; i < n; i++) {
+      const limit = Math.max(o.spurRatio, 1 + o.outlierSigma * Math.sqrt(scale / k[i]));
+      if (s[i] > limit * model[i]) {
+        set[i] = 1;
+        count++;
+      }
+    }
+    return { set, count };
+  };
   let excluded = 0;
   let converged = false;
+  let settled = false;
   for (let round = 0; round < MAX_SPUR_ROUNDS; round++) {
+    const { set, count } = outliers();
+    let changed = round === 0;
+    for (let i = 0; i < n; i++) {
+      if (set[i] === use[i]) changed = true; // use = 1 − outlier
+      use[i] = 1 - set[i];
+    }
+    excluded = count;
+    if (!changed) {
+      settled = true;
+      break;
+    }
+    if (n - count < TERMS + 1) break;
     converged = false;
     for (let it = 0; it < o.maxIterations; it++) {
       iterations++;
-      coef = weightedNonNegativeFit(f, s, model, use);
-      // reweight with the new model: wᵢ = 1/Mᵢ²
+      coef = weightedNonNegativeFit(f, s, k, model, use, scale * Math.log(n - count));
+      // reweight with the new model: wᵢ = Kᵢ/Mᵢ²
       let change = 0;
       for (let i = 0; i < n; i++) {
         const m = Math.max(modelOf(coef, i), floor);
@@ -218,21 +313,21 @@ export function fitNoiseModel(spectrum: Spectrum, options: NoiseModelFitOptions 
         break;
       }
     }
-    // spurs: points more than the threshold above the model leave the fit
-    let changed = false;
-    let count = 0;
-    for (let i = 0; i < n; i++) {
-      const spur = s[i] > o.spurRatio * model[i] ? 1 : 0;
-      if (spur !== 1 - use[i]) changed = true;
-      use[i] = 1 - spur;
-      count += spur;
-    }
-    excluded = count;
-    if (!changed) break;
+    scale = varianceScale(s, k, model, kAll !== null);
   }
   if (!converged) warnings.push(`the reweighted fit did not settle within ${o.maxIterations} steps`);
+  if (!settled) warnings.push(`the set of points left out above the model kept changing for ${MAX_SPUR_ROUNDS} rounds`);
+  const excludedHz: number[] = [];
+  for (let i = 0; i < n; i++) if (!use[i]) excludedHz.push(f[i]);
   if (excluded > 0) {
-    warnings.push(`${excluded} point(s) standing more than ${(10 * Math.log10(o.spurRatio)).toFixed(1)} dB above the model were left out as spurs`);
+    const text =
+      `${excluded} point(s) standing more than ${(10 * Math.log10(o.spurRatio)).toFixed(1)} dB and ` +
+      `${o.outlierSigma} standard deviations above the model were left out as spurs or bumps`;
+    if (excluded > EXCLUDED_WARNING_FRACTION * n) {
+      warnings.push(`${text} — ${Math.round((100 * excluded) / n)} % of the band: the power-law model does not describe this spectrum well`);
+    } else {
+      notes.push(text);
+    }
   }
   let chi = 0;
   let used = 0;
@@ -256,6 +351,9 @@ export function fitNoiseModel(spectrum: Spectrum, options: NoiseModelFitOptions 
     excludedCount: excluded,
     iterations,
     reducedChiSquare: used > active ? chi / (used - active) : 0,
+    varianceScale: scale,
+    excludedHz,
     warnings,
+    notes,
   };
 }

@@ -2,10 +2,11 @@ import { describe, expect, it } from 'vitest';
 
 import { AnalysisInputError } from '../../analysis/errors';
 import { fitNoiseModel } from '../../analysis/noise/model-fit';
-import { findSpurs } from '../../analysis/noise/spurs';
+import { findSpectralFeatures, findSpurs } from '../../analysis/noise/spurs';
 import type { Spectrum } from '../../analysis/types';
 import { linearSpectrum, withWelchScatter } from '../fixtures/linewidth/spectra';
 
+const rel = (a: number, b: number) => Math.abs(a / b - 1);
 const model = { whiteHz2PerHz: 1e4, flickerHz2: 1e6, randomWalkHz3: 0 };
 const modelAt = (f: number) => model.whiteHz2PerHz + model.flickerHz2 / f;
 
@@ -85,6 +86,90 @@ describe('findSpurs(welch, model)', () => {
   });
 });
 
+/**
+ * Kernel |W(δ)|²/|W(0)|² of a periodic cosine-sum window w[n] = Σ (−1)^k a_k cos(2πkn/L) at δ bins from a
+ * line, by a direct DFT of the window (L = 256). Blackman–Harris 4-term a = 0.35875, 0.48829, 0.14128,
+ * 0.01168 (Harris, Proc. IEEE 66(1), 51 (1978)).
+ */
+function cosineSumKernel(a: number[], delta: number): number {
+  const L = 256;
+  let re0 = 0;
+  let re = 0;
+  let im = 0;
+  for (let n = 0; n < L; n++) {
+    let w = 0;
+    for (let k = 0; k < a.length; k++) w += (k % 2 === 0 ? 1 : -1) * a[k] * Math.cos((2 * Math.PI * k * n) / L);
+    re0 += w;
+    re += w * Math.cos((2 * Math.PI * delta * n) / L);
+    im -= w * Math.sin((2 * Math.PI * delta * n) / L);
+  }
+  return (re * re + im * im) / (re0 * re0);
+}
+
+/** A resonance-like bump of peak P over the model, full width at half maximum W: P/(1 + (2(f − f0)/W)²) (Lorentzian). */
+function withBump(spectrum: Spectrum, f0: number, width: number, peakOverModel: number): Spectrum {
+  const psd = Float64Array.from(spectrum.psd);
+  for (let i = 0; i < psd.length; i++) {
+    const f = spectrum.frequencyHz[i];
+    const x = (2 * (f - f0)) / width;
+    psd[i] += (peakOverModel * modelAt(f0)) / (1 + x * x);
+  }
+  return { frequencyHz: spectrum.frequencyHz, psd };
+}
+
+describe('findSpectralFeatures(welch, model) tells narrow lines from broad bumps', () => {
+  it('a Lorentzian bump (FWHM 40 bins, 25 dB over the model, K = 14) is one bump, not spurs: centre within 2 bins, width within 15 %', () => {
+    // K = 14: single bins scatter by ±27 %, so the skirts cross the 10 dB threshold in patches
+    const clean = withBump(linearSpectrum(1, 1, 1024, modelAt), 600, 40, Math.pow(10, 2.5));
+    const s = withWelchScatter(clean, 14, 7);
+    const { spurs, bumps } = findSpectralFeatures(s, model);
+    expect(spurs).toEqual([]);
+    expect(bumps).toHaveLength(1);
+    expect(Math.abs(bumps[0].centerHz - 600)).toBeLessThanOrEqual(2);
+    expect(rel(bumps[0].widthHz, 40)).toBeLessThan(0.15);
+    expect(Math.abs(bumps[0].heightDb - 25)).toBeLessThan(1.5);
+    // findSpurs reports the lines only
+    expect(findSpurs(s, model)).toEqual([]);
+  });
+
+  it('a 30 dB line on top of the bump is still a spur, and the bump stays one bump', () => {
+    const bumped = withBump(linearSpectrum(1, 1, 1024, modelAt), 600, 40, Math.pow(10, 2.5));
+    const lines = welchWithLines([{ hz: 580, db: 42 }], 8);
+    const psd = Float64Array.from(bumped.psd, (v, i) => v + lines.psd[i] - modelAt(i + 1));
+    const { spurs, bumps } = findSpectralFeatures(withWelchScatter({ frequencyHz: bumped.frequencyHz, psd }, 50, 9), model);
+    expect(spurs.map((x) => Math.round(x.frequencyHz))).toEqual([580]);
+    expect(bumps).toHaveLength(1);
+    expect(Math.abs(bumps[0].centerHz - 600)).toBeLessThanOrEqual(3);
+  });
+
+  it('a line reports its power Σ(S − M)·Δf over the main lobe: an off-bin Hann line 25 dB up carries 1.5 bins × its on-bin peak', () => {
+    // the Hann kernel summed over all bins is its ENBW, 1.5 bins (METHODS 1.2), whatever the offset
+    const [spur] = findSpurs(welchWithLines([{ hz: 50.3, db: 25 }]), model);
+    const expected = 1.5 * modelAt(50.3) * Math.pow(10, 2.5) * 1; // 1 Hz bins
+    expect(rel(spur.powerHz2, expected)).toBeLessThan(0.02);
+  });
+
+  it("a flat-top line (main lobe ±5 bins) is one spur when the spectrum names its window, and reads as broad under Hann's ±2-bin lobe", () => {
+    // the 5-term flat-top of scipy.signal.windows.flattop (METHODS 1.2: NENBW 3.7702 bins)
+    const flatTop = [0.21557895, 0.41663158, 0.277263158, 0.083578947, 0.006947368];
+    const clean = linearSpectrum(1, 1, 1024, modelAt);
+    const psd = Float64Array.from(clean.psd);
+    const peak = modelAt(300) * 1e3; // 30 dB
+    for (let mBin = 285; mBin <= 315; mBin++) psd[mBin - 1] += peak * cosineSumKernel(flatTop, mBin - 300.4);
+    const s = withWelchScatter({ frequencyHz: clean.frequencyHz, psd }, 50, 4);
+    const named = findSpectralFeatures({ ...s, window: 'flat-top' } as Spectrum, model);
+    expect(named.spurs).toHaveLength(1);
+    // the flat top reads the frequency to about a bin (its lobe is flat over ±1 bin)
+    expect(Math.abs(named.spurs[0].frequencyHz - 300.4)).toBeLessThanOrEqual(1);
+    expect(named.bumps).toEqual([]);
+    expect(findSpectralFeatures(s, model, { window: 'flat-top' }).spurs).toHaveLength(1);
+    // its power over the ±5-bin lobe: the window's ENBW in bins × the on-bin peak
+    expect(rel(named.spurs[0].powerHz2, 3.7702 * peak)).toBeLessThan(0.02);
+    // with Hann's lobe the flat top's ±3–4-bin shoulders look broad
+    expect(findSpectralFeatures(s, model).spurs).toEqual([]);
+  });
+});
+
 describe('findSpurs rejects bad options', () => {
   const s = linearSpectrum(1, 1, 64, modelAt);
   it('thresholdDb = 0 throws AnalysisInputError', () => {
@@ -104,5 +189,8 @@ describe('findSpurs rejects bad options', () => {
   });
   it('maxSpurs = 0 throws AnalysisInputError', () => {
     expect(() => findSpurs(s, model, { maxSpurs: 0 })).toThrow(/maxSpurs/);
+  });
+  it("window = 'kaiser' throws AnalysisInputError", () => {
+    expect(() => findSpurs(s, model, { window: 'kaiser' as never })).toThrow(/window must be one of/);
   });
 });

@@ -312,6 +312,27 @@ async function latencyRun(): Promise<{ server: Server; session: Session; analysi
   return { server, session: s, analysisId };
 }
 
+/** 50 connections for 10 s; latencies of every response, percentiles computed here (autocannon reports no p95). */
+async function load(url: string, cookie: string): Promise<{ p95: number; summary: string }> {
+  const latencies: number[] = [];
+  let non2xx = 0;
+  const result = await new Promise<autocannon.Result>((resolve, reject) => {
+    const instance = autocannon({ url, connections: 50, duration: 10, headers: { cookie } }, (err, r) => (err ? reject(err) : resolve(r)));
+    instance.on('response', (_client, statusCode, _bytes, responseTime) => {
+      latencies.push(responseTime);
+      if (statusCode < 200 || statusCode >= 300) non2xx++;
+    });
+  });
+  latencies.sort((a, b) => a - b);
+  const pct = (p: number) => latencies[Math.min(latencies.length - 1, Math.floor((p / 100) * latencies.length))];
+  return {
+    p95: pct(95),
+    summary:
+      `${latencies.length} requests, ${result.requests.average.toFixed(0)} req/s, ${non2xx} not 2xx; ` +
+      `p50 ${pct(50).toFixed(1)} ms, p95 ${pct(95).toFixed(1)} ms, p99 ${pct(99).toFixed(1)} ms`,
+  };
+}
+
 async function servingRun(fallback: { server: Server; session: Session; analysisId: string } | null): Promise<void> {
   say('\n3. GET /api/analyses/:id/spectrum, 50 concurrent clients, 10 s (autocannon)');
   let server = fallback?.server ?? null;
@@ -344,21 +365,12 @@ async function servingRun(fallback: { server: Server; session: Session; analysis
     const check = await fetch(url, { headers: { cookie: session.cookie } });
     const body = (await check.json()) as { points: number };
     say(`  serving ${source}: ${body.points} points per reply`);
-    const latencies: number[] = [];
-    let non2xx = 0;
-    const result = await new Promise<autocannon.Result>((resolve, reject) => {
-      const instance = autocannon({ url, connections: 50, duration: 10, headers: { cookie: session!.cookie } }, (err, r) =>
-        err ? reject(err) : resolve(r),
-      );
-      instance.on('response', (_client, statusCode, _bytes, responseTime) => {
-        latencies.push(responseTime);
-        if (statusCode < 200 || statusCode >= 300) non2xx++;
-      });
-    });
-    latencies.sort((a, b) => a - b);
-    const pct = (p: number) => latencies[Math.min(latencies.length - 1, Math.floor((p / 100) * latencies.length))];
-    say(`  ${latencies.length} requests, ${result.requests.average.toFixed(0)} req/s, ${non2xx} not 2xx`);
-    say(`  latency: p50 ${pct(50).toFixed(1)} ms, p95 ${pct(95).toFixed(1)} ms (target < 50 ms), p99 ${pct(99).toFixed(1)} ms`);
+    const spectrum = await load(url, session.cookie);
+    say(`  spectrum: ${spectrum.summary}`);
+    say(`  p95 ${spectrum.p95.toFixed(1)} ms (target < 50 ms)`);
+    // the same load on the cheapest signed-in route: what every request costs before any spectrum work
+    const me = await load(`${server.base}/api/me`, session.cookie);
+    say(`  for comparison, GET /api/me under the same load: ${me.summary}`);
   } finally {
     await server.stop();
   }

@@ -4,14 +4,14 @@
  * every role, and 404 for members of other benches.
  */
 import { createHash } from 'node:crypto';
-import { readdirSync, statSync } from 'node:fs';
+import { readFileSync, readdirSync, statSync } from 'node:fs';
 import path from 'node:path';
 import type { Express } from 'express';
 import { pino } from 'pino';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { analyzeCapture } from '../../analysis/pipeline';
 import { createApp } from '../../server/app';
-import { loadEnv, type Env } from '../../server/config/env';
+import { loadEnv, projectRoot, type Env } from '../../server/config/env';
 import { createServices } from '../../server/services';
 import { LocalDiskStorage } from '../../server/storage/local-disk-storage';
 import type { Storage } from '../../server/storage/storage';
@@ -199,6 +199,21 @@ describe('POST /api/benches/:benchId/captures', () => {
     const res = await upload(analyst.agent, benchId, Buffer.from(rows.join('\n') + '\n'), 'wren-phase.csv', {});
     expect(res.status).toBe(201);
     expect(res.body.capture).toMatchObject({ format: 'csv', kind: 'phase', sampleRateHz: 10000, dtype: null, byteOrder: null });
+  });
+
+  it('takes each demo sample in samples/ with only what its README says the file cannot tell', async () => {
+    const samples: [string, Record<string, string>, Record<string, unknown>][] = [
+      ['kestrel-ecl-1550-iq.npy', { sampleRateHz: '250000' }, { format: 'npy', kind: 'iq', sampleRateHz: 250000 }],
+      ['kestrel-ecl-1550-phase.csv', {}, { format: 'csv', kind: 'phase', sampleRateHz: 100000 }],
+      ['wren-dfb-1549-iq-int16.bin', { dtype: 'int16', channels: '2', sampleRateHz: '500000' }, { format: 'raw', kind: 'iq', dtype: 'int16', channels: 2 }],
+      ['heron-fl-1560-beat.wav', { kind: 'beat' }, { format: 'wav', kind: 'beat', sampleRateHz: 192000 }],
+    ];
+    for (const [file, fields, expected] of samples) {
+      const bytes = readFileSync(path.join(projectRoot, 'samples', file));
+      const res = await upload(analyst.agent, benchId, bytes, file, fields);
+      expect(res.status, `${file}: ${res.text}`).toBe(201);
+      expect(res.body.capture).toMatchObject({ fileName: file, sizeBytes: bytes.length, ...expected });
+    }
   });
 
   it('refuses a viewer with 403, a non-member with 404 and nobody with 401, storing nothing', async () => {

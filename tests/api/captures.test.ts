@@ -13,6 +13,8 @@ import { analyzeCapture } from '../../analysis/pipeline';
 import { createApp } from '../../server/app';
 import { loadEnv, projectRoot, type Env } from '../../server/config/env';
 import { createServices } from '../../server/services';
+import { createCapturesService } from '../../server/modules/captures/captures.service';
+import { DEMO_CAPTURES, uploadDemoCaptures } from '../../server/modules/captures/demo-captures';
 import { LocalDiskStorage } from '../../server/storage/local-disk-storage';
 import type { Storage } from '../../server/storage/storage';
 import {
@@ -357,6 +359,26 @@ describe('POST /api/benches/:benchId/captures', () => {
     expect(res.status).toBe(500);
     expect(storedFiles()).toEqual(before.files);
     expect(await rowCounts(benchId)).toEqual(before.rows);
+  });
+});
+
+describe('uploadDemoCaptures (the demo seed’s path)', () => {
+  it('uploads each demo sample once through the captures service, with its laser and operating point', async () => {
+    const db = testDb();
+    const services = createServices(db);
+    const demoBench = await createBench(owner, 'Demo-like bench');
+    const access = await services.benches.resolveAccess(owner.user.id, demoBench);
+    const laserIds: Record<string, string> = {};
+    for (const name of ['Kestrel ECL-1550', 'Wren DFB-1549', 'Heron FL-1560']) {
+      laserIds[name] = (await services.lasers.create(access, { name, type: 'other' })).id;
+    }
+    const captures = createCapturesService({ db, storage: new LocalDiskStorage(storageDir), lasers: services.lasers });
+    expect(await uploadDemoCaptures({ captures, access, laserIds })).toBe(DEMO_CAPTURES.length);
+    expect(await uploadDemoCaptures({ captures, access, laserIds })).toBe(0);
+    const list = await owner.agent.get(`/api/benches/${demoBench}/captures?laserId=${laserIds['Wren DFB-1549']}`);
+    expect(list.body.captures).toHaveLength(1);
+    expect(list.body.captures[0]).toMatchObject({ fileName: 'wren-dfb-1549-iq-int16.bin', driveCurrentMa: 120, uploadedBy: owner.user.id });
+    expect(list.body.captures[0].latestAnalysis.status).toBe('queued');
   });
 });
 

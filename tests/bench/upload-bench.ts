@@ -22,7 +22,12 @@ import autocannon from 'autocannon';
 import knexFactory from 'knex';
 import { createSynthGenerator } from '../../analysis/synth/generator';
 import { loadEnv, projectRoot } from '../../server/config/env';
+import { createDb } from '../../server/db/knex';
 import { knexConfig } from '../../server/db/knexfile';
+import { createCapturesService } from '../../server/modules/captures/captures.service';
+import { uploadDemoCaptures } from '../../server/modules/captures/demo-captures';
+import { createServices } from '../../server/services';
+import { LocalDiskStorage } from '../../server/storage/local-disk-storage';
 
 const args = new Set(process.argv.slice(2));
 const outDir = path.join(projectRoot, 'tests', 'bench', 'out');
@@ -233,6 +238,20 @@ async function seedDemoData(): Promise<boolean> {
   if (r.status !== 0) {
     say(`  (the demo seed failed: ${r.stderr.trim().split('\n').pop()})`);
     return false;
+  }
+  // the demo captures through the captures service (the seed's own hook may do this already; it is idempotent)
+  const db = createDb({ ...baseEnv, PHASELOOM_DB_NAME: dbName });
+  try {
+    const services = createServices(db);
+    const mira = await services.auth.findUserByEmail('mira.kestner@example.org');
+    const bench = mira && (await services.benches.list(mira.id)).find((b) => b.name === 'Larchmere narrow-linewidth bench');
+    if (!mira || !bench) return false;
+    const access = await services.benches.resolveAccess(mira.id, bench.id);
+    const laserIds = Object.fromEntries((await services.lasers.list(access)).map((l) => [l.name, l.id]));
+    const captures = createCapturesService({ db, storage: new LocalDiskStorage(storageDir), lasers: services.lasers });
+    await uploadDemoCaptures({ captures, access, laserIds });
+  } finally {
+    await db.destroy();
   }
   return true;
 }

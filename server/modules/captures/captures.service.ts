@@ -9,23 +9,23 @@ import path from 'node:path';
 import type { Knex } from 'knex';
 import type { z } from 'zod';
 import type { AnalysisSettings } from '../../contracts/analyses';
-import type {
-  Capture,
-  CaptureDetailResponse,
-  CaptureListResponse,
-  CreateCaptureResponse,
-  ParsedCaptureUploadFields,
-  SetupParams,
+import {
+  settingsFromUpload,
+  type Capture,
+  type CaptureDetailResponse,
+  type CaptureListQuery,
+  type CaptureListResponse,
+  type CreateCaptureResponse,
+  type ParsedCaptureUploadFields,
+  type SetupParams,
 } from '../../contracts/captures';
-import { settingsFromUpload, type CaptureListQuery } from '../../contracts/captures';
 import { AppError } from '../../errors';
 import { newId } from '../../lib/ids';
 import type { Storage } from '../../storage/storage';
-import { toAnalysisSummary } from '../analyses/analysis-mapping';
+import { parseJsonColumn, toAnalysisSummary } from '../analyses/analysis-mapping';
 import { findAnalysisSummary, insertAnalysis, listAnalysesOfCapture } from '../analyses/analyses.repository';
 import type { BenchAccess } from '../benches/bench-policy';
 import type { LasersService } from '../lasers/lasers.service';
-import { parseJsonColumn } from '../analyses/analysis-mapping';
 import {
   accessFromRow,
   assertCaptureAction,

@@ -125,10 +125,12 @@ describe('GET /api/analyses/:id', () => {
     expect(done.result).toEqual(JSON.parse(JSON.stringify(engine.report)));
     expect(Object.keys(done.result)).toEqual(expect.arrayContaining(['input', 'settings', 'whiteFloor', 'intrinsicLinewidthHz', 'betaLine', 'lineshape', 'noiseModel', 'spurs']));
     expect(done.result.spectrum).toBeUndefined();
-    expect(done.intrinsicLinewidthHz).toBe(engine.report.intrinsicLinewidthHz);
-    expect(done.betaLinewidthHz).toBe(engine.report.betaLine.linewidthHz);
-    expect(done.lineshapeFwhmHz).toBe(engine.report.lineshape.fwhmHz);
-    expect(done.whiteFloorHz2PerHz).toBe(engine.report.whiteFloor.valueHz2PerHz);
+    // the figure columns are MariaDB DOUBLEs, which travel as text with 15 significant digits
+    const sameFigure = (column: number, exact: number | null) => expect(Math.abs(column - (exact as number))).toBeLessThanOrEqual(1e-13 * Math.abs(exact as number));
+    sameFigure(done.intrinsicLinewidthHz, engine.report.intrinsicLinewidthHz);
+    sameFigure(done.betaLinewidthHz, engine.report.betaLine.linewidthHz);
+    sameFigure(done.lineshapeFwhmHz, engine.report.lineshape.fwhmHz);
+    sameFigure(done.whiteFloorHz2PerHz, engine.report.whiteFloor.valueHz2PerHz);
     // white frequency noise h0 = 100 Hz²/Hz: Δν = π·h0 ≈ 314 Hz (loose: one short record)
     expect(done.intrinsicLinewidthHz).toBeGreaterThan(0.8 * Math.PI * 100);
     expect(done.intrinsicLinewidthHz).toBeLessThan(1.25 * Math.PI * 100);

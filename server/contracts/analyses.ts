@@ -147,6 +147,7 @@ export const SpectrumQuery = z.object({
 });
 export type SpectrumQuery = z.input<typeof SpectrumQuery>;
 
+/** Frequencies and values with 7 significant digits (the full-precision series is series.csv); a −∞ dB value is null. */
 export const SpectrumResponse = z.object({
   view: SpectrumView,
   unit: z.string(),

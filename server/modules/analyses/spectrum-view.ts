@@ -16,7 +16,13 @@ const ENGINE_VIEW: Record<SpectrumView, SpectrumViewName> = {
   asd: 'frequency-noise-asd',
 };
 
-const finiteOrNull = (v: number): number => (Number.isFinite(v) ? v : (null as unknown as number));
+/**
+ * Values travel with 7 significant digits (relative rounding ≤ 5·10⁻⁷): ample for a plot and for
+ * reading a band mean off it, and a third of the bytes of full doubles. The full-precision series is
+ * GET series.csv. dB of a zero S_ν is −Infinity: JSON has no such number, so it travels as null.
+ */
+const SIGNIFICANT_DIGITS = 7;
+const forDisplay = (v: number): number => (Number.isFinite(v) ? Number(v.toPrecision(SIGNIFICANT_DIGITS)) : (null as unknown as number));
 
 export function spectrumResponse(series: Series, view: SpectrumView, points: number): SpectrumResponse {
   // log bins from the lowest to the highest frequency: ⌊ppd·decades⌋ + 1 bins, so ask for one fewer
@@ -26,9 +32,8 @@ export function spectrumResponse(series: Series, view: SpectrumView, points: num
       ? positiveFrequencies(series)
       : logBinSpectrum({ frequencyHz: series.frequencyHz, psd: series.psd }, { points: Math.max(1, points - 1) });
   const v = spectrumView({ frequencyHz: binned.frequencyHz, psd: binned.psd }, ENGINE_VIEW[view]);
-  // dB of a zero S_ν is −Infinity: JSON has no such number, so it travels as null
-  const values = Array.from(v.values, finiteOrNull);
-  const frequencyHz = Array.from(v.frequencyHz);
+  const values = Array.from(v.values, forDisplay);
+  const frequencyHz = Array.from(v.frequencyHz, forDisplay);
   return { view, unit: SPECTRUM_UNITS[view], frequencyHz, values, points: frequencyHz.length };
 }
 

@@ -17,6 +17,8 @@ import { requireUser, sessionMiddleware } from './middleware/session';
 import type { AuthRateLimits } from './modules/auth/auth-rate-limits';
 import { createAnalysesRouter } from './modules/analyses/analyses.router';
 import { createAnalysesService } from './modules/analyses/analyses.service';
+import { auditRouter } from './modules/audit/audit.router';
+import { createAuditService } from './modules/audit/audit.service';
 import { authRouter } from './modules/auth/auth.router';
 import { benchesRouter } from './modules/benches/benches.router';
 import { createCapturesRouter } from './modules/captures/captures.router';
@@ -79,6 +81,7 @@ export function createApp(deps: AppDeps): Express {
   api.use('/benches/:benchId', loadBenchAccess(services.benches));
   api.use('/benches/:benchId/members', membersRouter(services.members));
   api.use('/benches/:benchId/lasers', lasersRouter(services.lasers));
+  api.use('/benches/:benchId/audit', auditRouter(createAuditService(deps.db)));
   api.use('/benches', benchesRouter(services.benches));
   const storage = deps.storage ?? new LocalDiskStorage(env.storageDir);
   const queued = { db: deps.db, storage, lasers: services.lasers, onQueued: deps.onAnalysesQueued };

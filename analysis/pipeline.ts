@@ -32,9 +32,9 @@ import { AnalysisInputError } from './errors';
 import { createReader } from './io/create-reader';
 import { inferKind } from './io/preview';
 import { type FormatSource, SNIFF_BYTES, chooseFormat } from './io/sniff';
-import { betaLine } from './linewidth/beta-line';
-import { lineshape } from './linewidth/lineshape';
-import { whiteFloor } from './linewidth/white-floor';
+import { type BetaLineReport, betaLine } from './linewidth/beta-line';
+import { type LineshapeReport, lineshape } from './linewidth/lineshape';
+import { type WhiteFloorReport, whiteFloor } from './linewidth/white-floor';
 import { type NoiseModelFitResult, fitNoiseModel } from './noise/model-fit';
 import { type SpectralBump, type SpurLine, findSpectralFeatures } from './noise/spurs';
 import { createFrequencyStage } from './phase/frequency-stage';
@@ -43,13 +43,11 @@ import { logBinSpectrum } from './spectrum/log-binning';
 import { createLogFrequencyAccumulator } from './spectrum/log-frequency';
 import { WINDOW_NAMES, makeWindow, windowSums } from './spectrum/windows';
 import type {
-  BetaLineResult,
   ByteOrder,
   CaptureFormat,
   CaptureKind,
   DetrendName,
   FrequencyStageSummary,
-  LineshapeResult,
   LogFrequencySpectrum,
   ProgressFn,
   RawDtype,
@@ -57,7 +55,6 @@ import type {
   SampleBlock,
   Spur,
   StreamingReader,
-  WhiteFloorResult,
   WindowName,
 } from './types';
 
@@ -152,9 +149,9 @@ export interface CaptureAnalysis {
   spectrum: LogFrequencySpectrum;
   /** the same binned to LOG_POINTS_PER_DECADE (averages summed over the merged bins) */
   logSpectrum: LogFrequencySpectrum;
-  whiteFloor: WhiteFloorResult;
-  betaLine: BetaLineResult;
-  lineshape: LineshapeResult;
+  whiteFloor: WhiteFloorReport;
+  betaLine: BetaLineReport;
+  lineshape: LineshapeReport;
   noiseModel: NoiseModelFitResult;
   spurs: SpurLine[];
   bumps: SpectralBump[];
@@ -169,12 +166,6 @@ export const MAX_SEGMENT = 2 ** 24;
 const DETREND: DetrendName = 'linear';
 /** points per decade of the log view the figures are read from */
 export const LOG_POINTS_PER_DECADE = 30;
-/**
- * The automatic white-floor search starts at the first log-frequency point averaged over at least
- * this many segments: with fewer, single points scatter by more than −2.3/+3.2 dB (METHODS 1.3,
- * K_eff = 10) and a search for the lowest flat band is drawn to downward fluctuations.
- */
-const FLOOR_MIN_AVERAGES = 100;
 /** share of the progress bar for reading (the rest: spectra, then figures) */
 const READ_SHARE = 0.9;
 
@@ -423,26 +414,27 @@ export async function analyzeCapture(source: CaptureSource, options: AnalyzeOpti
   const modelLowHz = Math.min(logSpectrum.reliableFromHz, topHz / 10);
   const noiseModel = fitNoiseModel(logSpectrum, { bandHz: [modelLowHz, topHz] });
   const { spurs, bumps } = findSpectralFeatures(spectrum, noiseModel, { bandHz: [modelLowHz, topHz] });
-  // the automatic floor search starts where every log point rests on ≥ FLOOR_MIN_AVERAGES segments,
-  // but leaves at least a decade below the search's top (top/5)
-  let firstSteady = 0;
-  while (firstSteady < f.length - 1 && logSpectrum.averages[firstSteady] < FLOOR_MIN_AVERAGES) firstSteady++;
-  const floorMinHz = Math.max(logSpectrum.reliableFromHz, Math.min(f[firstSteady], topHz / 50));
+  // the automatic floor search: from the reliable band up to fs/10 of the frequency series (METHODS 2.4)
+  // or the trusted top of a beat note, whichever is lower; the fitted flicker/random-walk terms are
+  // subtracted from the band's level, and bumps are left out of the search
+  const floorMaxHz = Math.min(topHz, stage.outputRateHz / 10);
   const floor = whiteFloor(
     logSpectrum,
     o.floorBandHz !== undefined
       ? { bandHz: o.floorBandHz, spurs }
       : {
           spurs,
-          minHz: floorMinHz,
-          ...(trustedTopHz !== undefined ? { maxHz: trustedTopHz / 5 } : {}),
+          excludeHz: bumps.map((b) => b.spanHz),
+          model: noiseModel,
+          minHz: logSpectrum.reliableFromHz,
+          ...(floorMaxHz > logSpectrum.reliableFromHz ? { maxHz: floorMaxHz } : {}),
         },
   );
   const beta = betaLine(logSpectrum, { observationTimeS: T0, maxHz: trustedTopHz });
   const shape = lineshape(logSpectrum, { observationTimeS: T0, maxHz: trustedTopHz, tailLevelHz2PerHz: floor.valueHz2PerHz });
 
   warnings.push(...summary.warnings, ...noiseModel.warnings, ...floor.warnings, ...beta.warnings, ...shape.warnings);
-  const notes = [...noiseModel.notes];
+  const notes = [...new Set([...noiseModel.notes, ...floor.notes, ...beta.notes, ...shape.notes])];
 
   const report: AnalysisReport = {
     input: {

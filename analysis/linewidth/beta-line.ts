@@ -17,15 +17,25 @@
  * exact for the interpolated spectrum. Between grid points S_ν is the power law through them
  * (a straight line on log-log axes; a straight line in f where a value is 0), so on every piece
  * S_ν/β is monotonic: at most one crossing, found in closed form, and the piece's area is exact.
+ * Low end (spectrum-grid.ts): when the first point f1 lies within 2.1/T0 (a log-frequency cascade's
+ * lowest point lies between 1/T0 and ≈ 2/T0 for T0 = the record length) S_ν is taken flat at that
+ * point's level from f1 down to 1/T0 — exact for white noise (it adds S(f1)·(f1 − 1/T0) to A),
+ * slightly low for flicker — and `notes` says so; further above 1/T0 the area starts at f1 with a warning.
  * Warnings: S_ν still above β at the top of the band → area truncated (a lower bound);
- * no area above 1/T0 (1/T0 >= f_x) → "line dominated by a coherent carrier at this T0".
+ * no area above 1/T0 (1/T0 >= f_x) → "line dominated by a coherent carrier at this T0";
+ * the spectrum starting above 2.1/T0 → the area below it is missing (a lower bound).
  * Defaults: maxHz = the top grid frequency.
  * Worked check: white S_ν = h0: f_x = π²h0/(8 ln2), A = h0(f_x − 1/T0) → FWHM = π·h0 as T0 → ∞.
  */
 
 import { AnalysisInputError } from '../errors';
 import type { BetaLineResult, Spectrum } from '../types';
-import { checkSpectrum, firstIndexAtOrAbove, psdAt } from './spectrum-grid';
+import { checkSpectrum, firstIndexAtOrAbove, lowEnd, psdFlatBelow } from './spectrum-grid';
+
+/** The β-line figures with the documented approximations that applied (`notes`, not problems). */
+export interface BetaLineReport extends BetaLineResult {
+  notes: string[];
+}
 
 export interface BetaLineOptions {
   /** observation time T0 (s): the area starts at 1/T0 */
@@ -47,7 +57,9 @@ interface ResolvedBetaLineOptions {
   lowHz: number;
   startHz: number;
   maxHz: number;
+  firstIndex: number;
   warnings: string[];
+  notes: string[];
 }
 
 function resolveBetaLineOptions(spectrum: Spectrum, options: BetaLineOptions): ResolvedBetaLineOptions {
@@ -67,15 +79,15 @@ function resolveBetaLineOptions(spectrum: Spectrum, options: BetaLineOptions): R
     throw new AnalysisInputError(`betaLine: 1/T0 = ${lowHz} Hz must lie below the top of the band, ${maxHz} Hz`);
   }
   const warnings: string[] = [];
-  const firstPositive = f[0] > 0 ? f[0] : f[1];
-  let startHz = lowHz;
-  if (lowHz < firstPositive) {
+  const notes: string[] = [];
+  const low = lowEnd(spectrum, lowHz);
+  if (low.note) notes.push(low.note);
+  else if (low.startHz > lowHz) {
     warnings.push(
-      `the spectrum starts at ${firstPositive} Hz, above 1/T0 = ${lowHz} Hz: the area below ${firstPositive} Hz is missing (a lower bound)`,
+      `the spectrum starts at ${low.firstHz} Hz, above 1/T0 = ${lowHz} Hz: the area below ${low.firstHz} Hz is missing (a lower bound)`,
     );
-    startHz = firstPositive;
   }
-  return { observationTimeS: t0, lowHz, startHz, maxHz, warnings };
+  return { observationTimeS: t0, lowHz, startHz: low.startHz, maxHz, firstIndex: low.firstIndex, warnings, notes };
 }
 
 /** ∫_a^b of the piece through (u, su), (v, sv) — a power law or a straight line, as its grid segment. */
@@ -107,20 +119,20 @@ function pieceCrossing(powerLaw: boolean, u: number, su: number, v: number, sv: 
   return u + (du / (du - dv)) * (v - u);
 }
 
-export function betaLine(spectrum: Spectrum, options: BetaLineOptions): BetaLineResult {
+export function betaLine(spectrum: Spectrum, options: BetaLineOptions): BetaLineReport {
   const o = resolveBetaLineOptions(spectrum, options);
   const f = spectrum.frequencyHz;
   const s = spectrum.psd;
   const warnings = o.warnings;
 
   // nodes: every grid point from the first positive one up to maxHz, plus 1/T0 (partial first bin) and maxHz
-  const firstPositiveIndex = f[0] > 0 ? 0 : 1;
+  const firstPositiveIndex = o.firstIndex;
   const nodeHz: number[] = [];
   const nodePsd: number[] = [];
   const scanFrom = Math.min(f[firstPositiveIndex], o.startHz);
   const pushNode = (x: number) => {
     nodeHz.push(x);
-    nodePsd.push(psdAt(f, s, x));
+    nodePsd.push(psdFlatBelow(f, s, firstPositiveIndex, x)); // flat below the first point (low-end rule)
   };
   pushNode(scanFrom);
   let startInserted = scanFrom === o.startHz;
@@ -194,5 +206,6 @@ export function betaLine(spectrum: Spectrum, options: BetaLineOptions): BetaLine
     carrierDominated,
     intervalsHz: intervals,
     warnings,
+    notes: o.notes,
   };
 }

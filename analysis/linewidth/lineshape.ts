@@ -24,6 +24,10 @@
  *  4. τ grid chosen adaptively: τ½ where Γ = ½ by bracketing + Brent; step τ½/12; extended until
  *     Γ − Γ(∞) < 1e-10 (at most 4000 steps). S_E by Simpson's rule on that grid.
  *  5. FWHM = 2ν½ where S_E(ν½) = S_E(0)/2: first downward crossing by stepping ν, then Brent.
+ * Low end (spectrum-grid.ts): when the first point f1 lies within 2.1/T0 (a log-frequency cascade's
+ * lowest point lies between 1/T0 and ≈ 2/T0 for T0 = the record length) S_ν is taken flat at that
+ * point's level from f1 down to 1/T0 (exact for white noise, slightly low for flicker) and `notes` says
+ * so; further above 1/T0 the integral starts at f1 with a warning (the FWHM is then a lower bound).
  * Cost: (grid points) × (τ points) evaluations of Si/Ci — tens of ms for a 2000-point log spectrum;
  * grids with more than 8000 points in the band (long linear Welch spectra) are first averaged onto
  * 1000 log bins per decade (with a warning). Pass the log-frequency spectrum when there is one.
@@ -36,7 +40,12 @@ import { AnalysisInputError } from '../errors';
 import type { LineshapeResult, Spectrum } from '../types';
 import { brentRoot } from './brent-root';
 import { sineCosineIntegrals } from './sine-cosine-integrals';
-import { checkSpectrum, firstIndexAtOrAbove, psdAt } from './spectrum-grid';
+import { checkSpectrum, firstIndexAtOrAbove, lowEnd, psdAt, psdFlatBelow } from './spectrum-grid';
+
+/** The lineshape with the documented approximations that applied (`notes`, not problems). */
+export interface LineshapeReport extends LineshapeResult {
+  notes: string[];
+}
 
 export interface LineshapeOptions {
   /** observation time T0 (s): S_ν is cut off below 1/T0 */
@@ -58,7 +67,9 @@ interface ResolvedLineshapeOptions {
   tailLevelHz2PerHz: number;
   displayPoints: number;
   displaySpanFwhm: number;
+  firstIndex: number;
   warnings: string[];
+  notes: string[];
 }
 
 /** Carrier floor above which the line is reported as carrier-dominated (METHODS 3.5). */
@@ -89,14 +100,15 @@ function resolveLineshapeOptions(spectrum: Spectrum, options: LineshapeOptions):
   if (!Number.isFinite(maxHz) || maxHz <= 0 || maxHz > top) {
     throw new AnalysisInputError(`lineshape: maxHz must be in (0, ${top}] (the top of the grid), got ${maxHz}`);
   }
-  const firstPositive = f[0] > 0 ? f[0] : f[1];
-  let lowHz = 1 / t0;
-  if (lowHz < firstPositive) {
+  const notes: string[] = [];
+  const low = lowEnd(spectrum, 1 / t0);
+  if (low.note) notes.push(low.note);
+  else if (low.startHz > 1 / t0) {
     warnings.push(
-      `the spectrum starts at ${firstPositive} Hz, above 1/T0 = ${lowHz} Hz: noise between them is left out (the FWHM is a lower bound)`,
+      `the spectrum starts at ${low.firstHz} Hz, above 1/T0 = ${1 / t0} Hz: noise between them is left out (the FWHM is a lower bound)`,
     );
-    lowHz = firstPositive;
   }
+  const lowHz = low.startHz;
   if (lowHz >= maxHz) {
     throw new AnalysisInputError(`lineshape: 1/T0 = ${1 / t0} Hz must lie below the top of the band, ${maxHz} Hz`);
   }
@@ -121,7 +133,17 @@ function resolveLineshapeOptions(spectrum: Spectrum, options: LineshapeOptions):
   if (!Number.isFinite(displaySpanFwhm) || displaySpanFwhm <= 0 || displaySpanFwhm > 20) {
     throw new AnalysisInputError(`lineshape: displaySpanFwhm must be in (0, 20], got ${displaySpanFwhm}`);
   }
-  return { observationTimeS: t0, lowHz, maxHz, tailLevelHz2PerHz: tail, displayPoints, displaySpanFwhm, warnings };
+  return {
+    observationTimeS: t0,
+    lowHz,
+    maxHz,
+    tailLevelHz2PerHz: tail,
+    displayPoints,
+    displaySpanFwhm,
+    firstIndex: low.firstIndex,
+    warnings,
+    notes,
+  };
 }
 
 /**
@@ -132,6 +154,7 @@ function buildNodes(
   spectrum: Spectrum,
   lowHz: number,
   maxHz: number,
+  firstIndex: number,
 ): { nodeHz: Float64Array; nodePsd: Float64Array; thinnedFrom: number } {
   let f = spectrum.frequencyHz;
   let s = spectrum.psd;
@@ -159,7 +182,9 @@ function buildNodes(
   }
   const nodeHz = Float64Array.from(nodes);
   const nodePsd = new Float64Array(nodeHz.length);
-  for (let j = 0; j < nodeHz.length; j++) nodePsd[j] = psdAt(f, s, nodeHz[j]);
+  // flat at the first positive point's level below it (low-end rule); a thinned grid keeps that point
+  const first = thinnedFrom > 0 ? (f[0] > 0 ? 0 : 1) : firstIndex;
+  for (let j = 0; j < nodeHz.length; j++) nodePsd[j] = psdFlatBelow(f, s, first, nodeHz[j]);
   return { nodeHz, nodePsd, thinnedFrom };
 }
 
@@ -260,10 +285,10 @@ class PhaseStructure {
 
 const EMPTY = new Float64Array(0);
 
-export function lineshape(spectrum: Spectrum, options: LineshapeOptions): LineshapeResult {
+export function lineshape(spectrum: Spectrum, options: LineshapeOptions): LineshapeReport {
   const o = resolveLineshapeOptions(spectrum, options);
   const warnings = o.warnings;
-  const { nodeHz, nodePsd, thinnedFrom } = buildNodes(spectrum, o.lowHz, o.maxHz);
+  const { nodeHz, nodePsd, thinnedFrom } = buildNodes(spectrum, o.lowHz, o.maxHz, o.firstIndex);
   if (thinnedFrom > 0) {
     warnings.push(
       `the ${thinnedFrom} grid points in the band were averaged onto ${THIN_BINS_PER_DECADE} log bins per decade (${nodeHz.length} nodes) to bound the work`,
@@ -276,6 +301,7 @@ export function lineshape(spectrum: Spectrum, options: LineshapeOptions): Linesh
     carrierFraction,
     tailLevelHz2PerHz: o.tailLevelHz2PerHz,
     warnings,
+    notes: o.notes,
   };
   if (carrierFraction > CARRIER_FLOOR_LIMIT) {
     warnings.push(

@@ -7,6 +7,7 @@
  *   checkSpectrum(spectrum, 'betaLine');          // throws AnalysisInputError naming the broken rule
  *   psdAt(spectrum.frequencyHz, spectrum.psd, 123.4);
  *   pointAverages(spectrum, 'whiteFloor');        // the spectrum's `averages` (K per point) or null
+ *   lowEnd(spectrum, 1 / T0);                     // where an integral from 1/T0 starts, and how
  *
  * Interpolation: between two grid points with positive f and S the spectrum is read as the power law
  * through them (straight line on log-log axes: exact for every h_a·f^a term on its own, and the usual
@@ -14,6 +15,13 @@
  * Averages: a Welch or log-frequency spectrum (WelchSpectrum, LogFrequencySpectrum) carries the number of
  * segments K behind each point; each point is then ≈ S·χ²_ν/ν with ν ≈ 2K_eff, relative variance ≈ 1/K_eff
  * (Phaseloom METHODS 1.3). `pointAverages` hands the per-point K to the fits, which weight by it.
+ * Low end (our rule, stated here; used by the β-line and the lineshape, which integrate from 1/T0): a
+ * log-frequency cascade's lowest point f1 lies between 1/T0 and ≈ 2/T0 for T0 = the record length
+ * (analysis/spectrum/log-frequency.ts). When 1/T0 < f1 <= 2.1/T0, S_ν is taken flat at the first point's
+ * level from f1 down to 1/T0 — a documented approximation: exact for a white spectrum (it adds
+ * S(f1)·(f1 − 1/T0) to ∫S df), low by 1 − 1/(2 ln 2) = 28 % of that slice for a 1/f spectrum when
+ * f1 = 2/T0 — and a note says so. When f1 > 2.1/T0 (say a T0 longer than the record) the integral starts at
+ * f1 and the caller warns that it is a lower bound. A DC bin (f = 0) is never used for this.
  * Worked check: points (10 Hz, 100), (1000 Hz, 1) → psdAt(…, 100) = 10 (the 1/f law through them).
  */
 
@@ -63,6 +71,48 @@ export function pointAverages(spectrum: Spectrum, who: string): Float64Array | n
     }
   }
   return k;
+}
+
+/** Largest f1·T0 for which the first point is stretched flat down to 1/T0 (the cascade's lowest point is within ≈ 2/T0). */
+export const LOW_END_EXTENSION_FACTOR = 2.1;
+
+export interface LowEnd {
+  /** index and frequency of the first positive grid point */
+  firstIndex: number;
+  firstHz: number;
+  /** where the integral starts: 1/T0, or the first point when the gap is too wide */
+  startHz: number;
+  /** the first point's level is stretched flat from firstHz down to startHz */
+  extended: boolean;
+  /** the note to show when extended */
+  note: string | null;
+}
+
+/** Where an integral from lowHz = 1/T0 starts on this grid, by the low-end rule above. */
+export function lowEnd(spectrum: Spectrum, lowHz: number): LowEnd {
+  const f = spectrum.frequencyHz;
+  const firstIndex = f[0] > 0 ? 0 : 1;
+  const firstHz = f[firstIndex];
+  if (!(lowHz < firstHz)) return { firstIndex, firstHz, startHz: lowHz, extended: false, note: null };
+  if (firstHz <= LOW_END_EXTENSION_FACTOR * lowHz) {
+    const level = spectrum.psd[firstIndex];
+    return {
+      firstIndex,
+      firstHz,
+      startHz: lowHz,
+      extended: true,
+      note:
+        `S_ν below its first point (${firstHz.toPrecision(4)} Hz) was taken flat at that point's level ` +
+        `(${level.toPrecision(4)} Hz²/Hz) down to 1/T0 = ${lowHz.toPrecision(4)} Hz: the spectrum's lowest point ` +
+        'lies within 2/T0, and a flat extension is exact for white noise and slightly low for flicker',
+    };
+  }
+  return { firstIndex, firstHz, startHz: firstHz, extended: false, note: null };
+}
+
+/** S_ν at x, read flat at the first positive point's level below it (never interpolated from a DC bin). */
+export function psdFlatBelow(f: Float64Array, s: Float64Array, firstIndex: number, x: number): number {
+  return x <= f[firstIndex] ? s[firstIndex] : psdAt(f, s, x);
 }
 
 /** Index of the first grid frequency >= x (f.length when none). Binary search. */

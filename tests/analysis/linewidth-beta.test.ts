@@ -86,11 +86,14 @@ describe('betaLine on analytic spectra', () => {
     expect(r.intervalsHz).toEqual([[50, 200]]);
   });
 
-  it('treats a DC bin as outside the spectrum: with bins [0, 100, 200] Hz and 1/T0 = 50 Hz it warns and starts at 100 Hz', () => {
+  it('treats a DC bin as outside the spectrum: bins [0, 100, 200] Hz, 1/T0 = 50 Hz → flat at S(100 Hz) down to 50 Hz, not a ramp from DC', () => {
     const spectrum = { frequencyHz: Float64Array.of(0, 100, 200), psd: Float64Array.of(0, 1000, 1000) };
     const r = betaLine(spectrum, { observationTimeS: 1 / 50 });
-    expect(r.areaHz2).toBeCloseTo(100000, 6);
-    expect(r.warnings.join(' ')).toMatch(/starts at 100 Hz, above 1\/T0 = 50 Hz/);
+    // 1000·(200 − 50): the first positive point is 2/T0, within the low-end rule's 2.1/T0
+    expect(r.areaHz2).toBeCloseTo(150000, 6);
+    expect(r.intervalsHz).toEqual([[50, 200]]);
+    expect(r.warnings.join(' ')).not.toMatch(/starts at/);
+    expect(r.notes.join(' ')).toMatch(/taken flat at that point's level .* down to 1\/T0 = 50\.00 Hz/);
   });
 
   it('adds every interval where S_ν > β: white h0 = 1e4 plus a 1e6 plateau on [200, 210] kHz', () => {
@@ -147,8 +150,46 @@ describe('betaLine on analytic spectra', () => {
   it('warns when the spectrum starts above 1/T0 and integrates from its first point', () => {
     const r = betaLine(logSpectrum(10, 1e7, 200, (f) => 1e4 + 1e8 / f), { observationTimeS: 1 });
     expect(r.warnings.join(' ')).toMatch(/starts at 10 Hz, above 1\/T0/);
+    expect(r.notes).toEqual([]);
     expect(r.intervalsHz[0][0]).toBe(10);
     expect(rel(r.areaHz2, whiteFlicker(1e4, 1e8, 0.1).area)).toBeLessThan(1e-4);
+  });
+});
+
+describe('betaLine low end: the first point within 2.1/T0 is stretched flat down to 1/T0', () => {
+  // white S = h0 on a grid starting at f1: A = h0(f_x − 1/T0) exactly, i.e. h0·(f1 − 1/T0) more than from f1
+  const h0 = 1e4;
+  const fx = (Math.PI * Math.PI * h0) / (8 * Math.LN2);
+  it.each([
+    [1.5, 1],
+    [2, 1],
+    [2.1, 1],
+    [1.0001, 1],
+  ])('white h0 = 1e4, first point %f Hz, T0 = %f s: A = h0·(f_x − 1/T0), no warning, a note', (f1, t0) => {
+    const r = betaLine(logSpectrum(f1, 1e7, 200, () => h0), { observationTimeS: t0 });
+    expect(rel(r.areaHz2, h0 * (fx - 1 / t0))).toBeLessThan(1e-9);
+    // the extension adds exactly h0·(f1 − 1/T0) to the area from f1
+    expect(rel(r.areaHz2 - h0 * (fx - f1), h0 * (f1 - 1 / t0))).toBeLessThan(1e-6);
+    expect(r.intervalsHz[0][0]).toBeCloseTo(1 / t0, 12);
+    expect(r.warnings).toEqual([]);
+    expect(r.notes).toHaveLength(1);
+  });
+
+  it('beyond 2.1/T0 (first point 2.2 Hz, T0 = 1 s) it starts at the first point and warns (a lower bound)', () => {
+    const r = betaLine(logSpectrum(2.2, 1e7, 200, () => h0), { observationTimeS: 1 });
+    expect(rel(r.areaHz2, h0 * (fx - 2.2))).toBeLessThan(1e-9);
+    expect(r.warnings.join(' ')).toMatch(/starts at 2\.2 Hz, above 1\/T0 = 1 Hz/);
+    expect(r.notes).toEqual([]);
+  });
+
+  it('for flicker h₋₁/f from f1 = 2/T0 the flat slice holds h₋₁/2 instead of h₋₁·ln 2 (the stated 28 % shortfall of that slice)', () => {
+    const h1 = 1e8;
+    const t0 = 1;
+    const from2 = betaLine(logSpectrum(2, 1e7, 400, (f) => h0 + h1 / f), { observationTimeS: t0 });
+    const exact = whiteFlicker(h0, h1, t0).area;
+    // ∫_1^2 h₋₁/f df = h₋₁ ln 2 against the flat (h₋₁/2)·(2 − 1); the white part of the slice is exact
+    const missing = h1 * (Math.LN2 - 0.5);
+    expect(rel(exact - from2.areaHz2, missing)).toBeLessThan(1e-4);
   });
 });
 

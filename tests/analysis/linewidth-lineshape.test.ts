@@ -146,11 +146,36 @@ describe('lineshape on a long linear Welch grid', () => {
   });
 });
 
+describe('lineshape low end: the first point within 2.1/T0 is stretched flat down to 1/T0', () => {
+  // carrier floor Γ(∞) = exp(−∫_{1/T0}^∞ S_ν/f² df); for white S = h0 that integral is h0·T0 exactly
+  it('white h0 = 1 Hz²/Hz from f1 = 1.5 Hz, T0 = 1 s: Γ(∞) = exp(−h0·T0) = e⁻¹ (not exp(−h0/f1) = e^−⅔ from f1)', () => {
+    const r = lineshape(logSpectrum(1.5, 1e6, 200, () => 1), { observationTimeS: 1, tailLevelHz2PerHz: 1 });
+    expect(rel(r.carrierFraction, Math.exp(-1))).toBeLessThan(1e-9);
+    expect(r.carrierDominated).toBe(true);
+    expect(r.warnings.join(' ')).not.toMatch(/starts at/);
+    expect(r.notes.join(' ')).toMatch(/taken flat at that point's level/);
+  });
+
+  it('white h0 = 1e4 from f1 = 1.9 Hz, T0 = 1 s: FWHM = π·h0 within 1e-4, no warning', () => {
+    const r = lineshape(logSpectrum(1.9, 1e7, 200, () => 1e4), { observationTimeS: 1, tailLevelHz2PerHz: 1e4 });
+    expect(rel(r.fwhmHz as number, Math.PI * 1e4)).toBeLessThan(1e-4);
+    expect(r.warnings).toEqual([]);
+    expect(r.notes).toHaveLength(1);
+  });
+
+  it('ignores a DC bin: bins [0, 2, 4, …] Hz with S(0) = 0 read flat at S(2 Hz) down to 1/T0 = 1 Hz', () => {
+    const grid = linearSpectrum(2, 0, 5e5, (f) => (f === 0 ? 0 : 1));
+    const r = lineshape(grid, { observationTimeS: 1, tailLevelHz2PerHz: 1 });
+    expect(rel(r.carrierFraction, Math.exp(-1))).toBeLessThan(1e-6);
+  });
+});
+
 describe('lineshape warnings and rejected options', () => {
   const s = logSpectrum(1, 1e6, 50, () => 1e4);
-  it('warns when the spectrum starts above 1/T0', () => {
+  it('warns when the spectrum starts above 2.1/T0 (the FWHM a lower bound)', () => {
     const r = lineshape(s, { observationTimeS: 10 });
     expect(r.warnings.join(' ')).toMatch(/starts at 1 Hz, above 1\/T0/);
+    expect(r.notes).toEqual([]);
   });
   it('observationTimeS = -1 throws AnalysisInputError', () => {
     expect(() => lineshape(s, { observationTimeS: -1 })).toThrow(AnalysisInputError);

@@ -22,6 +22,7 @@ export const ErrorCode = z.enum([
   'bad_origin', // 403: a state-changing request from another site
   'not_found', // 404: no such thing, or not visible to you
   'conflict', // 409: duplicate name or e-mail, last owner rules
+  'gone', // 410: a single-use or expiring link that was used, revoked or has expired
   'payload_too_large', // 413
   'rate_limited', // 429
   'internal', // 500

@@ -13,10 +13,12 @@ import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { originCheck } from './middleware/origin-check';
 import { requestLogger } from './middleware/request-logger';
 import { securityHeaders } from './middleware/security-headers';
-import { requireUser, sessionMiddleware } from './middleware/session';
+import { requireUser, sessionMiddleware, unlessBearer } from './middleware/session';
 import type { AuthRateLimits } from './modules/auth/auth-rate-limits';
 import { createAnalysesRouter } from './modules/analyses/analyses.router';
 import { createAnalysesService } from './modules/analyses/analyses.service';
+import { apiTokensRouter } from './modules/api-tokens/api-tokens.router';
+import { createApiTokensService } from './modules/api-tokens/api-tokens.service';
 import { auditRouter } from './modules/audit/audit.router';
 import { createAuditService } from './modules/audit/audit.service';
 import { authRouter } from './modules/auth/auth.router';
@@ -25,6 +27,8 @@ import { createCapturesRouter } from './modules/captures/captures.router';
 import { createCapturesService } from './modules/captures/captures.service';
 import { lasersRouter } from './modules/lasers/lasers.router';
 import { membersRouter } from './modules/members/members.router';
+import { createRfSpectraRouter } from './modules/rf-spectra/rf-spectra.router';
+import { createRfSpectraService } from './modules/rf-spectra/rf-spectra.service';
 import { createServices, type Services } from './services';
 import { LocalDiskStorage } from './storage/local-disk-storage';
 import type { Storage } from './storage/storage';
@@ -72,11 +76,14 @@ export function createApp(deps: AppDeps): Express {
     res.setHeader('Cache-Control', 'no-store');
     next();
   });
-  api.use(originCheck({ publicUrl: env.PHASELOOM_PUBLIC_URL }));
+  // Bearer requests skip the Origin check: the session middleware then ignores their cookie.
+  api.use(unlessBearer(originCheck({ publicUrl: env.PHASELOOM_PUBLIC_URL })));
   api.use(express.json({ limit: '1mb' }));
-  api.use(sessionMiddleware(services.auth));
+  const apiTokens = createApiTokensService(deps.db);
+  api.use(sessionMiddleware(services.auth, apiTokens));
 
   api.use(authRouter(services.auth, deps.rateLimits ?? rateLimitsFromEnv(env)));
+  api.use('/me/tokens', requireUser, apiTokensRouter(apiTokens));
   api.use('/benches', requireUser);
   api.use('/benches/:benchId', loadBenchAccess(services.benches));
   api.use('/benches/:benchId/members', membersRouter(services.members));
@@ -88,6 +95,7 @@ export function createApp(deps: AppDeps): Express {
   const captures = createCapturesService({ ...queued, logger });
   api.use(createCapturesRouter({ captures, storage, maxUploadBytes: env.PHASELOOM_MAX_UPLOAD_BYTES }));
   api.use(createAnalysesRouter({ analyses: createAnalysesService(queued) }));
+  api.use(createRfSpectraRouter(createRfSpectraService(deps.db)));
   deps.extraApiRoutes?.(api);
   api.use(apiNotFound);
 

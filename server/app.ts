@@ -25,10 +25,15 @@ import { authRouter } from './modules/auth/auth.router';
 import { benchesRouter } from './modules/benches/benches.router';
 import { createCapturesRouter } from './modules/captures/captures.router';
 import { createCapturesService } from './modules/captures/captures.service';
+import { createCommentsRouter } from './modules/comments/comments.router';
+import { createCommentsService } from './modules/comments/comments.service';
 import { lasersRouter } from './modules/lasers/lasers.router';
+import { createMarksRouter } from './modules/marks/marks.router';
+import { createMarksService } from './modules/marks/marks.service';
 import { membersRouter } from './modules/members/members.router';
 import { createRfSpectraRouter } from './modules/rf-spectra/rf-spectra.router';
 import { createRfSpectraService } from './modules/rf-spectra/rf-spectra.service';
+import { createVersionRouter } from './modules/reports/version.router';
 import { createServices, type Services } from './services';
 import { LocalDiskStorage } from './storage/local-disk-storage';
 import type { Storage } from './storage/storage';
@@ -96,6 +101,9 @@ export function createApp(deps: AppDeps): Express {
   api.use(createCapturesRouter({ captures, storage, maxUploadBytes: env.PHASELOOM_MAX_UPLOAD_BYTES }));
   api.use(createAnalysesRouter({ analyses: createAnalysesService(queued) }));
   api.use(createRfSpectraRouter(createRfSpectraService(deps.db)));
+  api.use(createMarksRouter({ marks: createMarksService({ db: deps.db }) }));
+  api.use(createCommentsRouter({ comments: createCommentsService({ db: deps.db }) }));
+  api.use(createVersionRouter());
   deps.extraApiRoutes?.(api);
   api.use(apiNotFound);
 

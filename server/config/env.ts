@@ -26,6 +26,11 @@ const EnvSchema = z.object({
   PHASELOOM_SMTP_HOST: z.string().default('127.0.0.1'),
   PHASELOOM_SMTP_PORT: port.default(2525),
   PHASELOOM_MAIL_FROM: z.string().default('Phaseloom <no-reply@phaseloom.invalid>'),
+  // SMTP for production: implicit TLS (port 465) and a login; the outbox folder the dev mail catcher fills.
+  PHASELOOM_SMTP_SECURE: z.enum(['true', 'false']).default('false').transform((v) => v === 'true'),
+  PHASELOOM_SMTP_USER: z.string().optional(),
+  PHASELOOM_SMTP_PASSWORD: z.string().optional(),
+  PHASELOOM_OUTBOX_DIR: z.string().default('.data/outbox'),
   PHASELOOM_WORKERS: z.coerce.number().int().min(0).optional(),
   // Express 'trust proxy': false (default; req.ip and https come from the socket), true, a hop count,
   // or addresses/subnets ('loopback', '10.0.0.0/8'). Set it when a reverse proxy terminates TLS so that

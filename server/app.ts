@@ -34,9 +34,17 @@ import { createLinkBudgetsService } from './modules/link-budgets/link-budgets.se
 import { createMarksRouter } from './modules/marks/marks.router';
 import { createMarksService } from './modules/marks/marks.service';
 import { membersRouter } from './modules/members/members.router';
+import { createOverlaysRouter } from './modules/overlays/overlays.router';
+import { createOverlaysService } from './modules/overlays/overlays.service';
 import { createVersionRouter } from './modules/reports/version.router';
 import { createRfSpectraRouter } from './modules/rf-spectra/rf-spectra.router';
 import { createRfSpectraService } from './modules/rf-spectra/rf-spectra.service';
+import { createShareLinksRouter } from './modules/share-links/share-links.router';
+import { createShareLinksService } from './modules/share-links/share-links.service';
+import { createSharedRouter, type SharedRateLimit } from './modules/shared/shared.router';
+import { createSharedService } from './modules/shared/shared.service';
+import { createSweepsRouter } from './modules/sweeps/sweeps.router';
+import { createSweepsService } from './modules/sweeps/sweeps.service';
 import { createSimulationsRouter } from './modules/simulations/simulations.router';
 import { createSimulationsService } from './modules/simulations/simulations.service';
 import { createServices, type Services } from './services';
@@ -59,6 +67,8 @@ export interface AppDeps {
   onAnalysesQueued?: () => void;
   /** Mounts extra routes under /api after the app's own (tests use it to inject a failing route). */
   extraApiRoutes?: (api: Router) => void;
+  /** Rate limit of GET /api/shared/* per client address; defaults to shared.router.ts's. */
+  sharedRateLimit?: SharedRateLimit;
 }
 
 export function rateLimitsFromEnv(env: Env): AuthRateLimits {
@@ -112,6 +122,12 @@ export function createApp(deps: AppDeps): Express {
   api.use(createMarksRouter({ marks: createMarksService({ db: deps.db }) }));
   api.use(createCommentsRouter({ comments: createCommentsService({ db: deps.db }) }));
   api.use(createVersionRouter());
+  const overlays = createOverlaysService(deps.db);
+  api.use(createOverlaysRouter({ overlays }));
+  api.use(createSweepsRouter({ sweeps: createSweepsService({ db: deps.db, lasers: services.lasers }) }));
+  const shareLinks = createShareLinksService({ db: deps.db, overlays });
+  api.use(createShareLinksRouter({ shareLinks, publicUrl: env.PHASELOOM_PUBLIC_URL }));
+  api.use(createSharedRouter({ shared: createSharedService(deps.db), rateLimit: deps.sharedRateLimit }));
   deps.extraApiRoutes?.(api);
   api.use(apiNotFound);
 

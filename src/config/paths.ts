@@ -46,6 +46,13 @@ export const paths = {
       path: '/benches/:benchId/spectra/:analysisId',
       getHref: (benchId: string, analysisId: string) => `/benches/${seg(benchId)}/spectra/${seg(analysisId)}`,
     },
+    /** RF beat spectra on the bench: the list and the upload form */
+    rfSpectra: { path: '/benches/:benchId/rf-spectra', getHref: (benchId: string) => `/benches/${seg(benchId)}/rf-spectra` },
+    /** one RF beat spectrum with its fits */
+    rfSpectrum: {
+      path: '/benches/:benchId/rf-spectra/:rfSpectrumId',
+      getHref: (benchId: string, id: string) => `/benches/${seg(benchId)}/rf-spectra/${seg(id)}`,
+    },
     /** a laser and its spectra over time */
     laser: {
       path: '/benches/:benchId/lasers/:laserId',
@@ -88,6 +95,7 @@ export const apiPaths = {
     laser: (benchId: string, laserId: string) => `${api}/benches/${seg(benchId)}/lasers/${seg(laserId)}`,
     /** GET with ?laserId=&kind=&tag=&page=&pageSize=; POST multipart to upload */
     captures: (benchId: string, query?: object) => `${api}/benches/${seg(benchId)}/captures${queryString(query)}`,
+    rfSpectra: (benchId: string) => `${api}/benches/${seg(benchId)}/rf-spectra`,
     laserSpectra: (benchId: string, laserId: string) =>
       `${api}/benches/${seg(benchId)}/lasers/${seg(laserId)}/spectra`,
   },
@@ -101,5 +109,9 @@ export const apiPaths = {
     spectrum: (analysisId: string, query?: object) => `${api}/analyses/${seg(analysisId)}/spectrum${queryString(query)}`,
     seriesCsv: (analysisId: string) => `${api}/analyses/${seg(analysisId)}/series.csv`,
     retry: (analysisId: string) => `${api}/analyses/${seg(analysisId)}/retry`,
+    allan: (analysisId: string) => `${api}/analyses/${seg(analysisId)}/allan`,
+  },
+  rfSpectra: {
+    detail: (id: string) => `${api}/rf-spectra/${seg(id)}`,
   },
 } as const;

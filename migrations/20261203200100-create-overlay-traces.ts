@@ -16,7 +16,7 @@ export async function up(knex: Knex): Promise<void> {
     t.specificType('overlay_id', ID).notNullable();
     t.integer('position').unsigned().notNullable();
     t.specificType('analysis_id', ID).notNullable();
-    t.primary(['overlay_id', 'position'], { constraintName: 'overlay_traces_pk' });
+    t.primary(['overlay_id', 'position']);
     t.unique(['overlay_id', 'analysis_id'], { indexName: 'overlay_traces_analysis_unique' });
     t.index(['analysis_id'], 'overlay_traces_analysis_idx');
     t.foreign('overlay_id', 'overlay_traces_overlay_fk').references('overlays.id').onDelete('CASCADE');

@@ -53,6 +53,11 @@ export const paths = {
       path: '/benches/:benchId/rf-spectra/:rfSpectrumId',
       getHref: (benchId: string, id: string) => `/benches/${seg(benchId)}/rf-spectra/${seg(id)}`,
     },
+    /** the printable report of one analysis: figures, plot, marks, provenance */
+    report: {
+      path: '/benches/:benchId/spectra/:analysisId/report',
+      getHref: (benchId: string, analysisId: string) => `/benches/${seg(benchId)}/spectra/${seg(analysisId)}/report`,
+    },
     /** a laser and its spectra over time */
     laser: {
       path: '/benches/:benchId/lasers/:laserId',
@@ -102,7 +107,12 @@ export const apiPaths = {
   captures: {
     detail: (captureId: string) => `${api}/captures/${seg(captureId)}`,
     analyses: (captureId: string) => `${api}/captures/${seg(captureId)}/analyses`,
+    marks: (captureId: string) => `${api}/captures/${seg(captureId)}/marks`,
+    comments: (captureId: string) => `${api}/captures/${seg(captureId)}/comments`,
   },
+  marks: { detail: (markId: string) => `${api}/marks/${seg(markId)}` },
+  comments: { detail: (commentId: string) => `${api}/comments/${seg(commentId)}` },
+  version: () => `${api}/version`,
   analyses: {
     detail: (analysisId: string) => `${api}/analyses/${seg(analysisId)}`,
     /** GET with ?view=&points= */

@@ -47,6 +47,7 @@ import { createSweepsRouter } from './modules/sweeps/sweeps.router';
 import { createSweepsService } from './modules/sweeps/sweeps.service';
 import { createSimulationsRouter } from './modules/simulations/simulations.router';
 import { createSimulationsService } from './modules/simulations/simulations.service';
+import { openApiRouter } from './openapi/openapi.router';
 import { createServices, type Services } from './services';
 import { LocalDiskStorage } from './storage/local-disk-storage';
 import type { Storage } from './storage/storage';
@@ -102,6 +103,7 @@ export function createApp(deps: AppDeps): Express {
   const apiTokens = createApiTokensService(deps.db);
   api.use(sessionMiddleware(services.auth, apiTokens));
 
+  api.use(openApiRouter());
   api.use(authRouter(services.auth, deps.rateLimits ?? rateLimitsFromEnv(env)));
   api.use('/me/tokens', requireUser, apiTokensRouter(apiTokens));
   api.use('/benches', requireUser);

@@ -14,6 +14,8 @@ import { benchesLoader, BenchesRoute } from './routes/benches';
 import { captureUploadHandle, captureUploadLoader, CaptureUploadRoute } from './routes/capture-upload';
 import { laserLoader, LaserRoute } from './routes/laser';
 import { NotFoundRoute } from './routes/not-found';
+import { rfSpectraLoader, RfSpectraRoute } from './routes/rf-spectra';
+import { rfSpectrumLoader, RfSpectrumRoute } from './routes/rf-spectrum';
 import { RootHydrateFallback, RootLayout } from './routes/root-layout';
 import { RootError, RouteError } from './routes/route-error';
 import { signInLoader, SignInRoute } from './routes/sign-in';
@@ -66,6 +68,8 @@ export function createAppRouter(queryClient: QueryClient) {
               handle: spectrumHandle,
             },
             { path: paths.benches.laser.path, loader: laserLoader(queryClient), Component: LaserRoute, ErrorBoundary: RouteError },
+            { path: paths.benches.rfSpectra.path, loader: rfSpectraLoader(queryClient), Component: RfSpectraRoute, ErrorBoundary: RouteError },
+            { path: paths.benches.rfSpectrum.path, loader: rfSpectrumLoader(queryClient), Component: RfSpectrumRoute, ErrorBoundary: RouteError },
             { path: paths.account.path, loader: accountLoader(queryClient), Component: AccountRoute, ErrorBoundary: RouteError },
           ],
         },

@@ -63,7 +63,12 @@ export function BenchHomeRoute() {
             </span>
           </>
         }
-        actions={<ButtonLink to={paths.benches.members.getHref(bench.id)}>Members</ButtonLink>}
+        actions={
+          <>
+            <ButtonLink to={paths.benches.rfSpectra.getHref(bench.id)}>RF spectra</ButtonLink>
+            <ButtonLink to={paths.benches.members.getHref(bench.id)}>Members</ButtonLink>
+          </>
+        }
       />
 
       <Section

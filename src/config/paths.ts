@@ -63,8 +63,25 @@ export const paths = {
       path: '/benches/:benchId/lasers/:laserId',
       getHref: (benchId: string, laserId: string) => `/benches/${seg(benchId)}/lasers/${seg(laserId)}`,
     },
+    /** a laser's linewidths against an operating parameter */
+    sweep: {
+      path: '/benches/:benchId/lasers/:laserId/sweep',
+      getHref: (benchId: string, laserId: string, parameter?: string) =>
+        `/benches/${seg(benchId)}/lasers/${seg(laserId)}/sweep${parameter ? `?parameter=${encodeURIComponent(parameter)}` : ''}`,
+    },
+    /** the bench's overlays; `add` offers that analysis for a new or existing overlay */
+    overlays: {
+      path: '/benches/:benchId/overlays',
+      getHref: (benchId: string, add?: string) => `/benches/${seg(benchId)}/overlays${add ? `?add=${encodeURIComponent(add)}` : ''}`,
+    },
+    overlay: {
+      path: '/benches/:benchId/overlays/:overlayId',
+      getHref: (benchId: string, overlayId: string) => `/benches/${seg(benchId)}/overlays/${seg(overlayId)}`,
+    },
   },
   account: { path: '/account', getHref: () => '/account' },
+  /** a share link's public page (no sign-in) */
+  shared: { path: '/shared/:token', getHref: (token: string) => `/shared/${seg(token)}` },
 } as const;
 
 const api = env.apiBase;
@@ -103,6 +120,10 @@ export const apiPaths = {
     rfSpectra: (benchId: string) => `${api}/benches/${seg(benchId)}/rf-spectra`,
     laserSpectra: (benchId: string, laserId: string) =>
       `${api}/benches/${seg(benchId)}/lasers/${seg(laserId)}/spectra`,
+    sweep: (benchId: string, laserId: string, parameter: string) =>
+      `${api}/benches/${seg(benchId)}/lasers/${seg(laserId)}/sweep${queryString({ parameter })}`,
+    overlays: (benchId: string) => `${api}/benches/${seg(benchId)}/overlays`,
+    shareLinks: (benchId: string) => `${api}/benches/${seg(benchId)}/share-links`,
   },
   captures: {
     detail: (captureId: string) => `${api}/captures/${seg(captureId)}`,
@@ -119,9 +140,16 @@ export const apiPaths = {
     spectrum: (analysisId: string, query?: object) => `${api}/analyses/${seg(analysisId)}/spectrum${queryString(query)}`,
     seriesCsv: (analysisId: string) => `${api}/analyses/${seg(analysisId)}/series.csv`,
     retry: (analysisId: string) => `${api}/analyses/${seg(analysisId)}/retry`,
+    shareLinks: (analysisId: string) => `${api}/analyses/${seg(analysisId)}/share-links`,
     allan: (analysisId: string) => `${api}/analyses/${seg(analysisId)}/allan`,
   },
   rfSpectra: {
     detail: (id: string) => `${api}/rf-spectra/${seg(id)}`,
   },
+  overlays: {
+    detail: (overlayId: string) => `${api}/overlays/${seg(overlayId)}`,
+    shareLinks: (overlayId: string) => `${api}/overlays/${seg(overlayId)}/share-links`,
+  },
+  shareLinks: { detail: (linkId: string) => `${api}/share-links/${seg(linkId)}` },
+  shared: (token: string) => `${api}/shared/${seg(token)}`,
 } as const;

@@ -7,6 +7,8 @@ import type { Knex } from 'knex';
 import type { Logger } from 'pino';
 import type { Env } from './config/env';
 import { notFound } from './errors';
+import { createMailFeatures } from './mail/mail-features';
+import type { Mailer } from './mail/mailer';
 import { loadBenchAccess } from './middleware/bench-access';
 import { clientRoutes } from './middleware/client';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
@@ -66,6 +68,8 @@ export interface AppDeps {
   storage?: Storage;
   /** Told when analyses were queued (server/index.ts passes the job runner's poke). */
   onAnalysesQueued?: () => void;
+  /** Sends e-mail; defaults to nodemailer over SMTP from the environment. */
+  mailer?: Mailer;
   /** Mounts extra routes under /api after the app's own (tests use it to inject a failing route). */
   extraApiRoutes?: (api: Router) => void;
   /** Rate limit of GET /api/shared/* per client address; defaults to shared.router.ts's. */
@@ -104,13 +108,17 @@ export function createApp(deps: AppDeps): Express {
   api.use(sessionMiddleware(services.auth, apiTokens));
 
   api.use(openApiRouter());
-  api.use(authRouter(services.auth, deps.rateLimits ?? rateLimitsFromEnv(env)));
+  const rateLimits = deps.rateLimits ?? rateLimitsFromEnv(env);
+  api.use(authRouter(services.auth, rateLimits));
+  const mail = createMailFeatures({ db: deps.db, env, logger, auth: services.auth, rateLimits, mailer: deps.mailer });
+  api.use(mail.publicRoutes);
   api.use('/me/tokens', requireUser, apiTokensRouter(apiTokens));
   api.use('/benches', requireUser);
   api.use('/benches/:benchId', loadBenchAccess(services.benches));
   api.use('/benches/:benchId/members', membersRouter(services.members));
   api.use('/benches/:benchId/lasers', lasersRouter(services.lasers));
   api.use('/benches/:benchId/audit', auditRouter(createAuditService(deps.db)));
+  api.use('/benches/:benchId/invitations', mail.benchInvitations);
   api.use('/benches', benchesRouter(services.benches));
   const storage = deps.storage ?? new LocalDiskStorage(env.storageDir);
   const queued = { db: deps.db, storage, lasers: services.lasers, onQueued: deps.onAnalysesQueued };

@@ -430,8 +430,14 @@ export async function analyzeCapture(source: CaptureSource, options: AnalyzeOpti
           ...(floorMaxHz > logSpectrum.reliableFromHz ? { maxHz: floorMaxHz } : {}),
         },
   );
-  const beta = betaLine(logSpectrum, { observationTimeS: T0, maxHz: trustedTopHz });
-  const shape = lineshape(logSpectrum, { observationTimeS: T0, maxHz: trustedTopHz, tailLevelHz2PerHz: floor.valueHz2PerHz });
+  // the log view's points are bin averages: read them linearly, so spectral lines keep their power
+  const beta = betaLine(logSpectrum, { observationTimeS: T0, maxHz: trustedTopHz, interpolation: 'linear' });
+  const shape = lineshape(logSpectrum, {
+    observationTimeS: T0,
+    maxHz: trustedTopHz,
+    tailLevelHz2PerHz: floor.valueHz2PerHz,
+    interpolation: 'linear',
+  });
 
   warnings.push(...summary.warnings, ...noiseModel.warnings, ...floor.warnings, ...beta.warnings, ...shape.warnings);
   const notes = [...new Set([...noiseModel.notes, ...floor.notes, ...beta.notes, ...shape.notes])];

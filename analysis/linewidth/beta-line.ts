@@ -17,6 +17,9 @@
  * exact for the interpolated spectrum. Between grid points S_ν is the power law through them
  * (a straight line on log-log axes; a straight line in f where a value is 0), so on every piece
  * S_ν/β is monotonic: at most one crossing, found in closed form, and the piece's area is exact.
+ * `interpolation: 'linear'` reads straight lines in f instead (estimated spectra: each bin keeps its
+ * ∫S df, so a spectral line keeps its power; spectrum-grid.ts); S_ν − β is then linear on each piece:
+ * again at most one crossing and an exact area.
  * Low end (spectrum-grid.ts): when the first point f1 lies within 2.1/T0 (a log-frequency cascade's
  * lowest point lies between 1/T0 and ≈ 2/T0 for T0 = the record length) S_ν is taken flat at that
  * point's level from f1 down to 1/T0 — exact for white noise (it adds S(f1)·(f1 − 1/T0) to A),
@@ -24,7 +27,7 @@
  * Warnings: S_ν still above β at the top of the band → area truncated (a lower bound);
  * no area above 1/T0 (1/T0 >= f_x) → "line dominated by a coherent carrier at this T0";
  * the spectrum starting above 2.1/T0 → the area below it is missing (a lower bound).
- * Defaults: maxHz = the top grid frequency.
+ * Defaults: maxHz = the top grid frequency; interpolation 'power-law'.
  * Worked check: white S_ν = h0: f_x = π²h0/(8 ln2), A = h0(f_x − 1/T0) → FWHM = π·h0 as T0 → ∞.
  */
 
@@ -42,6 +45,9 @@ export interface BetaLineOptions {
   observationTimeS: number;
   /** top of the trusted band, Hz; default the top grid frequency */
   maxHz?: number;
+  /** reading between points: 'power-law' (default; exact for analytic power laws) or 'linear' (for
+   *  estimated spectra: keeps each bin's ∫S df, so spectral lines keep their power — spectrum-grid.ts) */
+  interpolation?: 'power-law' | 'linear';
 }
 
 /** slope of the β line, c = 8 ln2 / π² (Hz²/Hz per Hz) */
@@ -58,6 +64,7 @@ interface ResolvedBetaLineOptions {
   startHz: number;
   maxHz: number;
   firstIndex: number;
+  linear: boolean;
   warnings: string[];
   notes: string[];
 }
@@ -74,6 +81,10 @@ function resolveBetaLineOptions(spectrum: Spectrum, options: BetaLineOptions): R
   if (!Number.isFinite(maxHz) || maxHz <= 0 || maxHz > top) {
     throw new AnalysisInputError(`betaLine: maxHz must be in (0, ${top}] (the top of the grid), got ${maxHz}`);
   }
+  const interpolation = options.interpolation ?? 'power-law';
+  if (interpolation !== 'power-law' && interpolation !== 'linear') {
+    throw new AnalysisInputError(`betaLine: interpolation must be 'power-law' or 'linear', got ${String(interpolation)}`);
+  }
   const lowHz = 1 / t0;
   if (lowHz >= maxHz) {
     throw new AnalysisInputError(`betaLine: 1/T0 = ${lowHz} Hz must lie below the top of the band, ${maxHz} Hz`);
@@ -87,7 +98,16 @@ function resolveBetaLineOptions(spectrum: Spectrum, options: BetaLineOptions): R
       `the spectrum starts at ${low.firstHz} Hz, above 1/T0 = ${lowHz} Hz: the area below ${low.firstHz} Hz is missing (a lower bound)`,
     );
   }
-  return { observationTimeS: t0, lowHz, startHz: low.startHz, maxHz, firstIndex: low.firstIndex, warnings, notes };
+  return {
+    observationTimeS: t0,
+    lowHz,
+    startHz: low.startHz,
+    maxHz,
+    firstIndex: low.firstIndex,
+    linear: interpolation === 'linear',
+    warnings,
+    notes,
+  };
 }
 
 /** ∫_a^b of the piece through (u, su), (v, sv) — a power law or a straight line, as its grid segment. */
@@ -132,7 +152,7 @@ export function betaLine(spectrum: Spectrum, options: BetaLineOptions): BetaLine
   const scanFrom = Math.min(f[firstPositiveIndex], o.startHz);
   const pushNode = (x: number) => {
     nodeHz.push(x);
-    nodePsd.push(psdFlatBelow(f, s, firstPositiveIndex, x)); // flat below the first point (low-end rule)
+    nodePsd.push(psdFlatBelow(f, s, firstPositiveIndex, x, o.linear)); // flat below the first point (low-end rule)
   };
   pushNode(scanFrom);
   let startInserted = scanFrom === o.startHz;
@@ -160,7 +180,7 @@ export function betaLine(spectrum: Spectrum, options: BetaLineOptions): BetaLine
     const counts = u >= o.startHz; // the area starts exactly at 1/T0 (a node)
     // the piece keeps the interpolation of the grid segment it lies in (power law unless a value is 0)
     const g = firstIndexAtOrAbove(f, v) - 1;
-    const powerLaw = f[g] > 0 && s[g] > 0 && s[g + 1] > 0;
+    const powerLaw = !o.linear && f[g] > 0 && s[g] > 0 && s[g + 1] > 0;
     if (du > 0 && dv > 0) {
       if (counts) {
         area += pieceIntegral(powerLaw, u, su, v, sv, u, v);

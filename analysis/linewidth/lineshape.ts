@@ -13,7 +13,9 @@
  * with the sharp cut at 1/T0 modelling a finite observation time T0 (as in Di Domenico, Schilt,
  * Thomann, Appl. Opt. 49(25), 4801 (2010)). Steps (Phaseloom METHODS 3.5):
  *  1. S_ν is read between grid points as the power law through them (segments wider than a ratio
- *     1.025 are subdivided), and on each piece as a straight line α + s·f, for which the f-integral is
+ *     1.025 are subdivided) — or, with `interpolation: 'linear'` (estimated spectra, whose bins keep
+ *     their ∫S df that way, so spectral lines keep their power; spectrum-grid.ts), as straight lines
+ *     between the grid points — and on each piece as a straight line α + s·f, for which the f-integral is
  *     exact: ∫ sin²(af)/f² df = a·g(2af), ∫ sin²(af)/f df = Cin(2af)/2, with a = πτ,
  *     g(x) = Si(x) − (1 − cos x)/x (see sine-cosine-integrals.ts). No sampling of the oscillation.
  *  2. Above the top of the band a white tail of level h_t is added in closed form:
@@ -31,7 +33,7 @@
  * Cost: (grid points) × (τ points) evaluations of Si/Ci — tens of ms for a 2000-point log spectrum;
  * grids with more than 8000 points in the band (long linear Welch spectra) are first averaged onto
  * 1000 log bins per decade (with a warning). Pass the log-frequency spectrum when there is one.
- * Defaults: maxHz = top grid frequency; tail level = mean S_ν of the last 5 points used;
+ * Defaults: maxHz = top grid frequency; interpolation 'power-law'; tail level = mean S_ν of the last 5 points used;
  * 129 display points from 0 to 4 FWHM.
  * Worked check: white S_ν = 10⁴ Hz²/Hz (T0 → ∞) gives a Lorentzian with FWHM = π·10⁴ = 31415.93 Hz.
  */
@@ -54,6 +56,9 @@ export interface LineshapeOptions {
   maxHz?: number;
   /** white level appended analytically above maxHz, Hz²/Hz; default the mean S_ν of the last 5 points used */
   tailLevelHz2PerHz?: number;
+  /** reading between points: 'power-law' (default; exact for analytic power laws) or 'linear' (for
+   *  estimated spectra: keeps each bin's ∫S df, so spectral lines keep their power — spectrum-grid.ts) */
+  interpolation?: 'power-law' | 'linear';
   /** number of samples of the displayed line; default 129 */
   displayPoints?: number;
   /** displayed offsets run from 0 to this many FWHM; default 4 */
@@ -68,6 +73,7 @@ interface ResolvedLineshapeOptions {
   displayPoints: number;
   displaySpanFwhm: number;
   firstIndex: number;
+  linear: boolean;
   warnings: string[];
   notes: string[];
 }
@@ -125,6 +131,10 @@ function resolveLineshapeOptions(spectrum: Spectrum, options: LineshapeOptions):
   if (!Number.isFinite(tail) || tail < 0) {
     throw new AnalysisInputError(`lineshape: tailLevelHz2PerHz must be a finite number >= 0, got ${tail}`);
   }
+  const interpolation = options.interpolation ?? 'power-law';
+  if (interpolation !== 'power-law' && interpolation !== 'linear') {
+    throw new AnalysisInputError(`lineshape: interpolation must be 'power-law' or 'linear', got ${String(interpolation)}`);
+  }
   const displayPoints = options.displayPoints ?? 129;
   if (!Number.isInteger(displayPoints) || displayPoints < 2 || displayPoints > 10_000) {
     throw new AnalysisInputError(`lineshape: displayPoints must be an integer in [2, 10000], got ${displayPoints}`);
@@ -141,6 +151,7 @@ function resolveLineshapeOptions(spectrum: Spectrum, options: LineshapeOptions):
     displayPoints,
     displaySpanFwhm,
     firstIndex: low.firstIndex,
+    linear: interpolation === 'linear',
     warnings,
     notes,
   };
@@ -155,6 +166,7 @@ function buildNodes(
   lowHz: number,
   maxHz: number,
   firstIndex: number,
+  linear: boolean,
 ): { nodeHz: Float64Array; nodePsd: Float64Array; thinnedFrom: number } {
   let f = spectrum.frequencyHz;
   let s = spectrum.psd;
@@ -169,7 +181,8 @@ function buildNodes(
     if (f[i] > lowHz) base.push(f[i]);
   }
   base.push(maxHz);
-  const maxLogStep = Math.log(MAX_SEGMENT_RATIO);
+  // linear reading: the grid points are the nodes; power law: wide segments subdivided
+  const maxLogStep = linear ? Infinity : Math.log(MAX_SEGMENT_RATIO);
   let total = 1;
   for (let i = 0; i + 1 < base.length; i++) total += Math.max(1, Math.ceil(Math.log(base[i + 1] / base[i]) / maxLogStep));
   const shrink = total > MAX_NODES ? total / MAX_NODES : 1;
@@ -184,7 +197,7 @@ function buildNodes(
   const nodePsd = new Float64Array(nodeHz.length);
   // flat at the first positive point's level below it (low-end rule); a thinned grid keeps that point
   const first = thinnedFrom > 0 ? (f[0] > 0 ? 0 : 1) : firstIndex;
-  for (let j = 0; j < nodeHz.length; j++) nodePsd[j] = psdFlatBelow(f, s, first, nodeHz[j]);
+  for (let j = 0; j < nodeHz.length; j++) nodePsd[j] = psdFlatBelow(f, s, first, nodeHz[j], linear);
   return { nodeHz, nodePsd, thinnedFrom };
 }
 
@@ -288,7 +301,7 @@ const EMPTY = new Float64Array(0);
 export function lineshape(spectrum: Spectrum, options: LineshapeOptions): LineshapeReport {
   const o = resolveLineshapeOptions(spectrum, options);
   const warnings = o.warnings;
-  const { nodeHz, nodePsd, thinnedFrom } = buildNodes(spectrum, o.lowHz, o.maxHz, o.firstIndex);
+  const { nodeHz, nodePsd, thinnedFrom } = buildNodes(spectrum, o.lowHz, o.maxHz, o.firstIndex, o.linear);
   if (thinnedFrom > 0) {
     warnings.push(
       `the ${thinnedFrom} grid points in the band were averaged onto ${THIN_BINS_PER_DECADE} log bins per decade (${nodeHz.length} nodes) to bound the work`,

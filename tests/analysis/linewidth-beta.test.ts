@@ -193,8 +193,42 @@ describe('betaLine low end: the first point within 2.1/T0 is stretched flat down
   });
 });
 
+describe("betaLine(s, { interpolation: 'linear' }) keeps the power of a spectral line on a Welch grid", () => {
+  // white h0 = 1e4 on a 1 Hz Welch grid plus a Hann-windowed line of power P at 50.3 Hz: bin m reads
+  // h0 + (P/1.5)·|W(m − 50.3)|², |W(δ)|² = [sinc δ/(1 − δ²)]² (Harris 1978), whose sum over all bins is
+  // the ENBW, 1.5 bins (METHODS 1.2) — so ∫S df over the grid holds exactly P more than the white part
+  const h0 = 1e4;
+  const P = 1e7;
+  const kernel = (d: number) => {
+    if (Math.abs(d) < 1e-12) return 1;
+    if (Math.abs(Math.abs(d) - 1) < 1e-12) return 0.25;
+    const v = Math.sin(Math.PI * d) / (Math.PI * d) / (1 - d * d);
+    return v * v;
+  };
+  const grid = linearSpectrum(1, 1, 50000, (f) => h0 + (Math.abs(f - 50.3) <= 12 ? (P / 1.5) * kernel(f - 50.3) : 0));
+  const fx = (Math.PI * Math.PI * h0) / (8 * Math.LN2);
+
+  it('linear: A = h0·(f_x − 1/T0) + P to 1e-5', () => {
+    const r = betaLine(grid, { observationTimeS: 1, interpolation: 'linear' });
+    expect(rel(r.areaHz2, h0 * (fx - 1) + P)).toBeLessThan(1e-5);
+  });
+
+  it('the power law through the peak and its low neighbours loses more than 10 % of the line', () => {
+    const r = betaLine(grid, { observationTimeS: 1 });
+    expect(h0 * (fx - 1) + P - r.areaHz2).toBeGreaterThan(0.1 * P);
+  });
+
+  it("linear on a white log grid is exact too: FWHM = π·h0 for T0 → ∞", () => {
+    const r = betaLine(logSpectrum(1e-7, 1e7, 30, () => h0), { observationTimeS: 1e6, interpolation: 'linear' });
+    expect(rel(r.linewidthHz, Math.PI * h0)).toBeLessThan(1e-6);
+  });
+});
+
 describe('betaLine rejects bad options', () => {
   const s = logSpectrum(1, 1e6, 50, () => 1e4);
+  it("interpolation = 'cubic' throws AnalysisInputError", () => {
+    expect(() => betaLine(s, { observationTimeS: 1, interpolation: 'cubic' as never })).toThrow(/interpolation must be/);
+  });
   it('observationTimeS = 0 throws AnalysisInputError', () => {
     expect(() => betaLine(s, { observationTimeS: 0 })).toThrow(AnalysisInputError);
   });

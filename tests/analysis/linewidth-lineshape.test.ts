@@ -170,12 +170,36 @@ describe('lineshape low end: the first point within 2.1/T0 is stretched flat dow
   });
 });
 
+describe("lineshape(s, { interpolation: 'linear' })", () => {
+  it('white h0 = 1e4 on a 30-point-per-decade grid, T0 → ∞: FWHM = π·h0 (1e-4), the grid points are the nodes', () => {
+    const r = lineshape(logSpectrum(1e-3, 1e7, 30, () => 1e4), { observationTimeS: 1e3, tailLevelHz2PerHz: 1e4, interpolation: 'linear' });
+    expect(rel(r.fwhmHz as number, Math.PI * 1e4)).toBeLessThan(1e-4);
+  });
+
+  it('keeps a Hann line of power P at f_m in ∫S_ν/f² df: ln Γ(∞) = −(h0·T0 + P/f_m²) within 0.5 % (h0 = 1, P = 2500, f_m = 50.3 Hz)', () => {
+    // Welch bins h0 + (P/1.5)|W(m − f_m)|² on a 1 Hz grid (Harris 1978; the kernel sums to 1.5 bins)
+    const kernel = (d: number) => {
+      if (Math.abs(d) < 1e-12) return 1;
+      if (Math.abs(Math.abs(d) - 1) < 1e-12) return 0.25;
+      const v = Math.sin(Math.PI * d) / (Math.PI * d) / (1 - d * d);
+      return v * v;
+    };
+    const grid = linearSpectrum(1, 1, 4000, (f) => 1 + (Math.abs(f - 50.3) <= 12 ? (2500 / 1.5) * kernel(f - 50.3) : 0));
+    const r = lineshape(grid, { observationTimeS: 1, tailLevelHz2PerHz: 1, interpolation: 'linear' });
+    const expected = 1 + 2500 / (50.3 * 50.3);
+    expect(rel(-Math.log(r.carrierFraction), expected)).toBeLessThan(5e-3);
+  });
+});
+
 describe('lineshape warnings and rejected options', () => {
   const s = logSpectrum(1, 1e6, 50, () => 1e4);
   it('warns when the spectrum starts above 2.1/T0 (the FWHM a lower bound)', () => {
     const r = lineshape(s, { observationTimeS: 10 });
     expect(r.warnings.join(' ')).toMatch(/starts at 1 Hz, above 1\/T0/);
     expect(r.notes).toEqual([]);
+  });
+  it("interpolation = 'cubic' throws AnalysisInputError", () => {
+    expect(() => lineshape(s, { observationTimeS: 1, interpolation: 'cubic' as never })).toThrow(/interpolation must be/);
   });
   it('observationTimeS = -1 throws AnalysisInputError', () => {
     expect(() => lineshape(s, { observationTimeS: -1 })).toThrow(AnalysisInputError);

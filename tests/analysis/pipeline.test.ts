@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { type AnalyzeOptions, analyzeCapture, defaultSegment, resolveAnalyzeOptions } from '../../analysis/pipeline';
 import { AnalysisInputError } from '../../analysis/errors';
+import { synthesize } from '../../analysis/synth/generator';
 import { encodeFrames, encodeNpy, seeded, textBytes } from './io-encoders';
 
 /**
@@ -60,6 +61,15 @@ describe('analyzeCapture on white frequency noise h0 = 1e4 Hz²/Hz (IQ .npy, fs 
     expect(Math.abs(report.betaLine.linewidthHz / (Math.PI * H0) - 1)).toBeLessThan(0.05);
     expect(Math.abs(report.lineshape.fwhmHz! / (Math.PI * H0) - 1)).toBeLessThan(0.05);
     expect(report.spectrum).toBeUndefined();
+    // nothing to warn about on clean white noise; the lowest point (within 2/T0) is stretched to 1/T0, said as a note
+    expect(report.warnings).toEqual([]);
+    expect(report.notes.join(' ')).toMatch(/taken flat at that point's level .* down to 1\/T0/);
+    expect(report.spurs).toEqual([]);
+    expect(report.bumps).toEqual([]);
+    // the white-only model: a₋₁ and a₋₂ are not supported by the data (Schwarz criterion, model-fit.ts)
+    expect(Math.abs(report.noiseModel.whiteHz2PerHz / H0 - 1)).toBeLessThan(0.02);
+    expect(report.noiseModel.flickerHz2).toBe(0);
+    expect(report.noiseModel.randomWalkHz3).toBe(0);
   });
 
   it('analyzeCapture reports the Welch settings: default segment 65536 (≤ N/8, capped), K = ⌊(n − L)/D⌋ + 1 over n = N − 1 frequency samples', async () => {
@@ -119,6 +129,74 @@ describe('analyzeCapture on white frequency noise h0 = 1e4 Hz²/Hz (IQ .npy, fs 
     for (let i = 1; i < seen.length; i++) expect(seen[i][0]).toBeGreaterThanOrEqual(seen[i - 1][0]);
     expect(seen[seen.length - 1]).toEqual([1, 'figures']);
     expect(seen.filter((x) => x[1] === 'reading').length).toBeGreaterThan(2);
+  });
+});
+
+describe('analyzeCapture on a DFB-like record: white 1e3 + flicker 1e7/f and a 50 Hz mains line of 20 kHz peak deviation (IQ, fs = 500 kHz, 2^19 samples)', () => {
+  // known parameters of the synthetic record (analysis/synth/generator.ts); the checks are the analytic
+  // values: intrinsic linewidth π·h0 (METHODS 3.2), the β-line area h0(f_x − 1/T0) + h₋₁ ln(f_x T0)
+  // (METHODS 3.3, closed form for white + flicker) plus the line's power Δ²/2 (an FM tone ν = Δ sin 2πf_m t)
+  const fs = 5e5;
+  const n = 1 << 19;
+  const h0 = 1e3;
+  const h1 = 1e7;
+  const dev = 2e4;
+  const C = (8 * Math.LN2) / (Math.PI * Math.PI);
+  it.each([1, 2])('seed %i: intrinsic π·h0 within 5 %, the model within 1.5 dB at its low end, one spur at 50 Hz carrying Δ²/2, β area within 10 %, no warnings', async (seed) => {
+    const [i, q] = synthesize(
+      { sampleRateHz: fs, output: 'iq', whiteHz2PerHz: h0, flickerHz2: h1, spurs: [{ frequencyHz: 50, peakDeviationHz: dev }], seed },
+      n,
+    ).channels;
+    const bytes = encodeNpy('<f8', [n, 2], encodeFrames(Array.from(i, (v, k) => [v, q[k]]), 'f8', true));
+    const { report, spectrum, logSpectrum } = await analyzeCapture({ chunks: [bytes] }, { sampleRateHz: fs });
+    expect(Math.abs(report.intrinsicLinewidthHz / (Math.PI * h0) - 1)).toBeLessThan(0.05);
+    const m = report.noiseModel;
+    expect(Math.abs(m.whiteHz2PerHz / h0 - 1)).toBeLessThan(0.05);
+    expect(Math.abs(m.flickerHz2 / h1 - 1)).toBeLessThan(0.1);
+    // the line must not pull a random-walk term up: the model stays on the data at the bottom of its band
+    const low = logSpectrum.reliableFromHz;
+    const atLow = m.whiteHz2PerHz + m.flickerHz2 / low + m.randomWalkHz3 / (low * low);
+    expect(Math.abs(10 * Math.log10(atLow / (h0 + h1 / low)))).toBeLessThan(1.5);
+    // one narrow line, within a bin of 50 Hz, whose power gives back the peak deviation (√(2P) = Δ) within 10 %
+    expect(report.spurs).toHaveLength(1);
+    const bin = spectrum.resolutionHz[spectrum.frequencyHz.findIndex((f) => f >= 50)];
+    expect(Math.abs(report.spurs[0].frequencyHz - 50)).toBeLessThanOrEqual(bin);
+    expect(Math.abs(Math.sqrt(2 * report.spurs[0].powerHz2) / dev - 1)).toBeLessThan(0.1);
+    expect(report.bumps).toEqual([]);
+    const T0 = n / fs;
+    const fx = (h0 + Math.sqrt(h0 * h0 + 4 * C * h1)) / (2 * C);
+    const area = h0 * (fx - 1 / T0) + h1 * Math.log(fx * T0) + (dev * dev) / 2;
+    // the few-average points of the lowest octaves scatter by ±40 % each: 10 % on the area
+    expect(Math.abs(report.betaLine.areaHz2 / area - 1)).toBeLessThan(0.1);
+    expect(report.warnings).toEqual([]);
+  });
+});
+
+describe('analyzeCapture on a fibre-laser-like beat note with a relaxation-oscillation bump (8 kHz, 200 Hz wide, 3e3 Hz²/Hz; fs = 192 kHz, 2^18 samples)', () => {
+  it.each([1, 2])('seed %i: one bump centred within 1 % of 8 kHz, width within 25 % of 200 Hz, no spurs', async (seed) => {
+    const fs = 192000;
+    const n = 1 << 18;
+    const [v] = synthesize(
+      {
+        sampleRateHz: fs,
+        output: 'beat',
+        whiteHz2PerHz: 10,
+        flickerHz2: 1e4,
+        bumps: [{ centerHz: 8000, widthHz: 200, peakHz2PerHz: 3e3 }],
+        intermediateFrequencyHz: 48000,
+        seed,
+      },
+      n,
+    ).channels;
+    const bytes = encodeNpy('<f8', [n], encodeFrames(Array.from(v, (x) => [x]), 'f8', true));
+    const { report } = await analyzeCapture({ chunks: [bytes] }, { sampleRateHz: fs, kind: 'beat' });
+    expect(report.spurs).toEqual([]);
+    expect(report.bumps).toHaveLength(1);
+    expect(Math.abs(report.bumps[0].centerHz / 8000 - 1)).toBeLessThan(0.01);
+    // the width is read at half the smoothed excess of a K = 14 estimate (±27 % per bin): 25 %
+    expect(Math.abs(report.bumps[0].widthHz / 200 - 1)).toBeLessThan(0.25);
+    // the resonance peaks at 3e3 over a background of ≈ 14 Hz²/Hz: about 23 dB
+    expect(Math.abs(report.bumps[0].heightDb - 10 * Math.log10(3e3 / (10 + 1e4 / 8000)))).toBeLessThan(2);
   });
 });
 

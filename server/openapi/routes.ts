@@ -38,7 +38,15 @@ import {
   CreateCaptureResponse,
 } from '../contracts/captures';
 import { CommentResponse, CommentsResponse, CreateCommentRequest } from '../contracts/comments';
+import { LaserEstimateRequest, LaserEstimateResponse } from '../contracts/laser-estimates';
 import { CreateLaserRequest, LaserListResponse, LaserResponse, UpdateLaserRequest } from '../contracts/lasers';
+import {
+  EvaluateLinkBudgetRequest,
+  LinkBudgetEvaluation,
+  LinkBudgetListResponse,
+  LinkBudgetResponse,
+  SaveLinkBudgetRequest,
+} from '../contracts/link-budgets';
 import { CreateMarkRequest, MarkResponse, MarksResponse, UpdateMarkRequest } from '../contracts/marks';
 import { CreateOverlayRequest, OverlayListResponse, OverlayResponse, UpdateOverlayRequest } from '../contracts/overlays';
 import { VersionResponse } from '../contracts/reports';
@@ -49,6 +57,7 @@ import {
   ShareLinkListResponse,
   SharedResponse,
 } from '../contracts/share-links';
+import { CreateSimulationRequest, SimulationListResponse, SimulationResponse } from '../contracts/simulations';
 import { SweepQuery, SweepResponse } from '../contracts/sweeps';
 import type { RouteSpec } from './route-spec';
 
@@ -123,4 +132,15 @@ export const ROUTES: RouteSpec[] = [
   { route: 'GET /api/rf-spectra/:id', who: 'any member', what: 'one RF spectrum with its trace and fits', reply: RfSpectrumResponse },
   { route: 'DELETE /api/rf-spectra/:id', who: 'owner, or the analyst who uploaded it', what: 'delete an RF spectrum' },
   { route: 'GET /api/benches/:benchId/audit', who: 'owner', what: 'the audit trail, with filters', query: AuditListQuery, reply: AuditListResponse },
+
+  // ---- laser physics: estimates, link budgets, simulations ----------------------------------------
+  { route: 'POST /api/laser-estimates', who: 'signed in', what: 'the linewidth a laser design predicts (nothing stored)', body: LaserEstimateRequest, reply: LaserEstimateResponse, status: 200 },
+  { route: 'POST /api/link-budgets/evaluate', who: 'signed in (analyses read through your benches)', what: 'check a modulation format’s phase-noise tolerance (nothing stored)', body: EvaluateLinkBudgetRequest, reply: LinkBudgetEvaluation, status: 200, errors: [404] },
+  { route: 'GET /api/benches/:benchId/link-budgets', who: 'any member', what: 'saved link budgets', reply: LinkBudgetListResponse },
+  { route: 'POST /api/benches/:benchId/link-budgets', who: 'owner, analyst', what: 'save a link budget', body: SaveLinkBudgetRequest, reply: LinkBudgetResponse },
+  { route: 'GET /api/link-budgets/:id', who: 'any member', what: 'one saved link budget', reply: LinkBudgetResponse },
+  { route: 'DELETE /api/link-budgets/:id', who: 'owner, or the analyst who saved it', what: 'delete a link budget' },
+  { route: 'POST /api/benches/:benchId/simulations', who: 'owner, analyst', what: 'simulate a laser; the result becomes a synthetic capture', body: CreateSimulationRequest, reply: SimulationResponse, status: 202 },
+  { route: 'GET /api/benches/:benchId/simulations', who: 'any member', what: 'the bench’s simulations', reply: SimulationListResponse },
+  { route: 'GET /api/simulations/:id', who: 'any member', what: 'one simulation with its status and prediction', reply: SimulationResponse },
 ];

@@ -1,5 +1,5 @@
 /**
- * What a simulation worker thread receives and sends back (plain data, by structured clone).
+ * What a simulation worker receives and returns (plain data, by structured clone).
  */
 import type { RateEquationParameters } from '../../analysis/laser/rate-equation-model';
 
@@ -11,9 +11,8 @@ export interface SimulationTask {
   maxStepS?: number;
 }
 
-export type SimulationMessage =
-  | { type: 'progress'; fraction: number }
-  /** the .npy file, its buffer transferred */
-  | { type: 'done'; npy: Uint8Array }
+export type SimulationOutcome =
+  /** the .npy file (its buffer moved) */
+  | Uint8Array
   /** an AnalysisInputError's message (bad parameters), verbatim */
-  | { type: 'failed'; message: string };
+  | { message: string };

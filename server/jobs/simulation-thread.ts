@@ -1,34 +1,52 @@
 /**
- * Runs one simulation in its own worker thread (simulation-worker.ts) and resolves with the .npy bytes.
- * Progress arrives on the thread's messages; a thread that throws or exits early rejects only this run.
+ * Runs simulations in worker threads (simulation-worker.ts) through a small piscina pool of its own: one
+ * thread, started on demand and ended when idle, so a server that never simulates holds none. Progress
+ * arrives on a MessagePort handed to each task; a worker that throws or exits rejects only its own run.
  * TypeScript workers get `--import tsx`, as the analysis pool's do.
  */
 import path from 'node:path';
-import { Worker } from 'node:worker_threads';
+import { MessageChannel } from 'node:worker_threads';
+import { Piscina } from 'piscina';
 import { AnalysisInputError } from '../../analysis/errors';
-import type { SimulationMessage, SimulationTask } from './simulation-task';
+import type { SimulationOutcome, SimulationTask } from './simulation-task';
 
 export const SIMULATION_WORKER_FILE = path.join(import.meta.dirname, 'simulation-worker.ts');
 
-export function runSimulationThread(task: SimulationTask, onProgress: (fraction: number) => void): Promise<Uint8Array> {
-  return new Promise((resolve, reject) => {
-    const worker = new Worker(SIMULATION_WORKER_FILE, {
-      workerData: task,
-      execArgv: ['--import', 'tsx'],
-      resourceLimits: { maxOldGenerationSizeMb: 512 },
-    });
-    let settled = false;
-    const settle = (fn: () => void) => {
-      if (settled) return;
-      settled = true;
-      fn();
-    };
-    worker.on('message', (m: SimulationMessage) => {
-      if (m.type === 'progress') onProgress(m.fraction);
-      else if (m.type === 'done') settle(() => resolve(m.npy));
-      else settle(() => reject(new AnalysisInputError(m.message)));
-    });
-    worker.on('error', (e) => settle(() => reject(new Error(`simulation worker crashed: ${e.message}`))));
-    worker.on('exit', (code) => settle(() => reject(new Error(`simulation worker exited (${code}) before it finished`))));
+let pool: Piscina | undefined;
+
+function simulationPool(): Piscina {
+  pool ??= new Piscina({
+    filename: SIMULATION_WORKER_FILE,
+    minThreads: 0,
+    maxThreads: 1,
+    idleTimeout: 30_000,
+    execArgv: ['--import', 'tsx'],
+    resourceLimits: { maxOldGenerationSizeMb: 512 },
   });
+  pool.on('error', () => {});
+  return pool;
+}
+
+export async function runSimulationThread(task: SimulationTask, onProgress: (fraction: number) => void): Promise<Uint8Array> {
+  const { port1, port2 } = new MessageChannel();
+  port1.on('message', (fraction: number) => onProgress(fraction));
+  try {
+    let outcome: SimulationOutcome;
+    try {
+      outcome = (await simulationPool().run({ task, port: port2 }, { transferList: [port2] })) as SimulationOutcome;
+    } catch (e) {
+      throw new Error(`simulation worker crashed: ${(e as Error).message}`, { cause: e });
+    }
+    if (!(outcome instanceof Uint8Array)) throw new AnalysisInputError(outcome.message);
+    return outcome;
+  } finally {
+    port1.close();
+  }
+}
+
+/** Ends the pool's thread (shutdown, tests). */
+export async function closeSimulationPool(): Promise<void> {
+  const p = pool;
+  pool = undefined;
+  await p?.destroy();
 }

@@ -1,21 +1,19 @@
 /**
- * Worker thread of a rate-equation simulation: runs createRateEquationSimulator (analysis/laser/
- * rate-equations.ts) block by block, posts progress, and sends back a .npy float32 (N, 2) I/Q file whose
- * buffer is transferred (not copied). Never runs on the request thread.
+ * Worker-thread task of a rate-equation simulation (run by the piscina pool of simulation-thread.ts):
+ * runs createRateEquationSimulator (analysis/laser/rate-equations.ts) block by block, posts progress on
+ * the port it is handed, and returns a .npy float32 (N, 2) I/Q file whose buffer is moved, not copied.
+ * Never runs on the request thread.
  */
-import { parentPort, workerData } from 'node:worker_threads';
+import type { MessagePort } from 'node:worker_threads';
+import { Piscina } from 'piscina';
 import { isAnalysisInputError } from '../../analysis/errors';
 import { createRateEquationSimulator } from '../../analysis/laser/rate-equations';
 import { npyFloat32Iq } from './simulation-npy';
-import type { SimulationMessage, SimulationTask } from './simulation-task';
+import type { SimulationOutcome, SimulationTask } from './simulation-task';
 
 const BLOCK = 8192;
 
-function post(message: SimulationMessage, transfer: ArrayBuffer[] = []): void {
-  parentPort!.postMessage(message, transfer);
-}
-
-function run(task: SimulationTask): void {
+export default function simulate({ task, port }: { task: SimulationTask; port: MessagePort }): SimulationOutcome {
   try {
     const sim = createRateEquationSimulator({
       ...task.parameters,
@@ -35,14 +33,14 @@ function run(task: SimulationTask): void {
       const now = Date.now();
       if (now - lastPost > 200) {
         lastPost = now;
-        post({ type: 'progress', fraction: (start + n) / task.samples });
+        port.postMessage((start + n) / task.samples);
       }
     }
-    post({ type: 'done', npy: bytes }, [bytes.buffer as ArrayBuffer]);
+    return Piscina.move(bytes) as Uint8Array; // the file itself, its buffer moved
   } catch (e) {
-    if (isAnalysisInputError(e)) post({ type: 'failed', message: e.message });
-    else throw e;
+    if (isAnalysisInputError(e)) return { message: e.message };
+    throw e;
+  } finally {
+    port.close();
   }
 }
-
-run(workerData as SimulationTask);

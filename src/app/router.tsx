@@ -14,6 +14,7 @@ import { benchesLoader, BenchesRoute } from './routes/benches';
 import { captureUploadHandle, captureUploadLoader, CaptureUploadRoute } from './routes/capture-upload';
 import { laserLoader, LaserRoute } from './routes/laser';
 import { NotFoundRoute } from './routes/not-found';
+import { reportLoader, ReportRoute } from './routes/report';
 import { rfSpectraLoader, RfSpectraRoute } from './routes/rf-spectra';
 import { rfSpectrumLoader, RfSpectrumRoute } from './routes/rf-spectrum';
 import { RootHydrateFallback, RootLayout } from './routes/root-layout';
@@ -33,6 +34,8 @@ export function createAppRouter(queryClient: QueryClient) {
         { path: paths.home.path, loader: () => redirect(paths.benches.list.getHref()) },
         { path: paths.auth.signIn.path, loader: signInLoader(queryClient), Component: SignInRoute, ErrorBoundary: RootError },
         { path: paths.auth.signUp.path, loader: signUpLoader(queryClient), Component: SignUpRoute, ErrorBoundary: RootError },
+        // the printable report: signed in, outside the site chrome
+        { path: paths.benches.report.path, loader: reportLoader(queryClient), Component: ReportRoute, ErrorBoundary: RootError },
         {
           id: 'app',
           loader: appLayoutLoader(queryClient),

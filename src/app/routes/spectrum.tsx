@@ -3,9 +3,10 @@
  * spectrum with its figures, settings and exports, and the capture's other analyses.
  */
 import type { QueryClient } from '@tanstack/react-query';
-import { useCallback } from 'react';
+import { useCallback, useMemo } from 'react';
 import { useNavigate, useParams, type LoaderFunctionArgs } from 'react-router';
 import { PageHeader } from '../../components/layout/page-header';
+import { ButtonLink } from '../../components/ui/button';
 import { paths } from '../../config/paths';
 import { useSignedInUser } from '../../features/auth/api/get-me';
 import { benchQueryOptions, useBench } from '../../features/benches/api/get-bench';
@@ -14,6 +15,11 @@ import { AnalysisHistory } from '../../features/captures/components/analysis-his
 import { CaptureFacts } from '../../features/captures/components/capture-facts';
 import { DeleteCaptureControl } from '../../features/captures/components/delete-capture-control';
 import { lasersQueryOptions, useLasers } from '../../features/lasers/api/get-lasers';
+import { commentsQueryOptions } from '../../features/marks/api/list-comments';
+import { marksQueryOptions, useMarks } from '../../features/marks/api/list-marks';
+import { CommentThread } from '../../features/marks/components/comment-thread';
+import { toPlotMarks } from '../../features/marks/components/mark-style';
+import { MarksPanel } from '../../features/marks/components/marks-panel';
 import { analysisQueryOptions, useAnalysis } from '../../features/spectra/api/get-analysis';
 import { SpectrumWorkspace } from '../../features/spectra/components/spectrum-workspace';
 import type { RouteHandle } from './app-layout';
@@ -30,7 +36,11 @@ export const spectrumLoader =
       queryClient.ensureQueryData(analysisQueryOptions(analysisId)),
       queryClient.ensureQueryData(lasersQueryOptions(benchId)),
     ]);
-    await queryClient.ensureQueryData(captureQueryOptions(analysis.captureId));
+    await Promise.all([
+      queryClient.ensureQueryData(captureQueryOptions(analysis.captureId)),
+      queryClient.ensureQueryData(marksQueryOptions(analysis.captureId)),
+      queryClient.ensureQueryData(commentsQueryOptions(analysis.captureId)),
+    ]);
     return null;
   };
 
@@ -40,6 +50,8 @@ export function SpectrumRoute() {
   const analysis = useAnalysis(analysisId);
   const { capture, analyses } = useCapture(analysis.captureId);
   const lasers = useLasers(benchId);
+  const { marks } = useMarks(analysis.captureId);
+  const plotMarks = useMemo(() => toPlotMarks(marks), [marks]);
   const user = useSignedInUser();
   const navigate = useNavigate();
   const laser = capture.laserId ? (lasers.find((l) => l.id === capture.laserId) ?? null) : null;
@@ -62,10 +74,29 @@ export function SpectrumRoute() {
         ]}
         title={capture.fileName}
         meta={<CaptureFacts capture={capture} laserName={laser?.name ?? null} />}
-        actions={canDelete ? <DeleteCaptureControl captureId={capture.id} fileName={capture.fileName} onDeleted={() => navigate(paths.benches.home.getHref(bench.id), { replace: true })} /> : undefined}
+        actions={
+          <div className="flex items-center gap-3">
+            {analysis.status === 'done' && (
+              <ButtonLink size="sm" to={paths.benches.report.getHref(bench.id, analysis.id)} data-testid="print-report">
+                Print report
+              </ButtonLink>
+            )}
+            {canDelete && <DeleteCaptureControl captureId={capture.id} fileName={capture.fileName} onDeleted={() => navigate(paths.benches.home.getHref(bench.id), { replace: true })} />}
+          </div>
+        }
       />
       <div className="mt-8">
-        <SpectrumWorkspace analysisId={analysis.id} canWrite={canWrite} context={{ fileName: capture.fileName, laserName: laser?.name ?? null }} onOpenAnalysis={openAnalysis} />
+        <SpectrumWorkspace
+          analysisId={analysis.id}
+          canWrite={canWrite}
+          context={{ fileName: capture.fileName, laserName: laser?.name ?? null }}
+          onOpenAnalysis={openAnalysis}
+          marks={plotMarks}
+          besidePlot={<MarksPanel captureId={capture.id} canWrite={canWrite} />}
+        />
+      </div>
+      <div className="mt-12 max-w-[44rem]">
+        <CommentThread captureId={capture.id} canWrite={canWrite} />
       </div>
       <div className="mt-12 max-w-[44rem]">
         <AnalysisHistory benchId={bench.id} analyses={history} currentId={analysis.id} />

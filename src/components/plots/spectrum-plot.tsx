@@ -56,6 +56,17 @@ export interface PlotNoiseModel {
   bandHz: readonly [number, number];
 }
 
+/** A note pinned by a person to a frequency (hiHz null) or a band [loHz, hiHz] of the spectrum. */
+export interface PlotMark {
+  id: string;
+  loHz: number;
+  hiHz: number | null;
+  /** a short label drawn beside it (its number and text) */
+  label: string;
+  /** its colour (Okabe–Ito, by kind) */
+  color: string;
+}
+
 export interface SpectrumPlotProps {
   /** the display series: frequencies (Hz, ascending) and S_ν (Hz²/Hz) */
   series: Series;
@@ -71,6 +82,8 @@ export interface SpectrumPlotProps {
   showBeta?: boolean;
   model?: PlotNoiseModel | null;
   spurs?: readonly PlotSpur[];
+  /** people's marks: a thin vertical line or a shaded band, with a small label */
+  marks?: readonly PlotMark[];
   /** accessible name of the figure */
   label: string;
   height?: number;
@@ -114,6 +127,7 @@ export function SpectrumPlot({
   showBeta = true,
   model = null,
   spurs = [],
+  marks = [],
   label,
   height: heightProp,
   svgRef,
@@ -238,6 +252,19 @@ export function SpectrumPlot({
         })
         .filter((s): s is SpurGroup & { px: number; py: number } => s !== null && s.px >= 0 && s.px <= iw),
     [spurs, pts, x, y, iw],
+  );
+
+  // marks in view, with labels on three staggered rows so neighbours do not overprint
+  const markShapes = useMemo(
+    () =>
+      marks
+        .map((m, i) => {
+          const lo = x(m.loHz);
+          const hi = m.hiHz === null ? lo : x(m.hiHz);
+          return { ...m, lo, hi, row: i % 3 };
+        })
+        .filter((m) => m.hi >= 0 && m.lo <= iw),
+    [marks, x, iw],
   );
 
   const tInv = observationTimeS && observationTimeS > 0 ? 1 / observationTimeS : null;
@@ -365,7 +392,7 @@ export function SpectrumPlot({
   const bandPx = band ? { lo: x(band[0]), hi: x(band[1]) } : null;
   const movable = Boolean(onBandChange && band);
 
-  const legend: { key: string; label: string; swatch: 'line' | 'dash' | 'fill' | 'band' | 'model' | 'spur' }[] = [
+  const legend: { key: string; label: string; swatch: 'line' | 'dash' | 'fill' | 'band' | 'model' | 'spur' | 'mark' }[] = [
     { key: 'trace', label: `${info.symbol} measured`, swatch: 'line' },
   ];
   if (showBeta) {
@@ -375,6 +402,7 @@ export function SpectrumPlot({
   if (band) legend.push({ key: 'band', label: 'white-floor band', swatch: 'band' });
   if (model) legend.push({ key: 'model', label: 'noise model', swatch: 'model' });
   if (spurMarks.length) legend.push({ key: 'spur', label: 'spur', swatch: 'spur' });
+  if (markShapes.length) legend.push({ key: 'mark', label: 'mark', swatch: 'mark' });
 
   const legendItems = (() => {
     let cx = 0;
@@ -437,6 +465,7 @@ export function SpectrumPlot({
                   {item.swatch === 'band' && <rect x={0} y={-5} width={22} height={10} fill={T.floor} fillOpacity={0.22} stroke={T.floor} strokeWidth={0.8} />}
                   {item.swatch === 'model' && <line x1={0} x2={22} y1={0} y2={0} stroke={T.model} strokeWidth={1.5} strokeDasharray="1 0" />}
                   {item.swatch === 'spur' && <path d="M6,-4 L16,-4 L11,4 Z" fill={T.spur} />}
+                  {item.swatch === 'mark' && <line x1={11} x2={11} y1={-6} y2={6} stroke={T.ink} strokeWidth={1} />}
                   <text x={30} y={0} dy="0.35em">
                     <SvgSymbol text={item.label} fontSize={TICK_FONT} />
                   </text>
@@ -489,6 +518,25 @@ export function SpectrumPlot({
                           : `spur at ${formatSI(s.frequencyHz, 'Hz').text}, ${formatFixed(s.heightDb, 'dB', 1).text} above the noise model`}
                       </title>
                     </path>
+                  ))}
+                  {markShapes.map((m) => (
+                    <g key={`m${m.id}`} data-layer="mark" data-mark-id={m.id}>
+                      {m.hiHz !== null && <rect x={m.lo} y={0} width={Math.max(1, m.hi - m.lo)} height={ih} fill={m.color} fillOpacity={0.12} />}
+                      <line x1={m.lo} x2={m.lo} y1={0} y2={ih} stroke={m.color} strokeWidth={1} />
+                      {m.hiHz !== null && <line x1={m.hi} x2={m.hi} y1={0} y2={ih} stroke={m.color} strokeWidth={1} />}
+                      <text
+                        x={m.lo > iw - 120 ? m.lo - 3 : m.lo + 3}
+                        y={12 + m.row * 13}
+                        textAnchor={m.lo > iw - 120 ? 'end' : 'start'}
+                        fontSize={10}
+                        fill={m.color}
+                        stroke={T.paper}
+                        strokeWidth={3}
+                        paintOrder="stroke"
+                      >
+                        {m.label}
+                      </text>
+                    </g>
                   ))}
                 </g>
 
@@ -641,6 +689,7 @@ export function SpectrumPlot({
           ? `${info.name}, ${info.symbol.replace('_', '')} in ${info.unit}, from ${formatSI(pts.f[0], 'Hz').text} to ${formatSI(pts.f[n - 1], 'Hz').text}` +
             (band ? `; white-floor band ${formatSI(band[0], 'Hz').text} to ${formatSI(band[1], 'Hz').text}` : '') +
             (spurMarks.length ? `; ${spurMarks.length} spur ${spurMarks.length === 1 ? 'mark' : 'marks'}` : '') +
+            (markShapes.length ? `; ${markShapes.length} ${markShapes.length === 1 ? 'mark' : 'marks'} listed beside the plot` : '') +
             '. The figures below give the numbers.'
           : 'No points to draw in this view.'}
       </p>

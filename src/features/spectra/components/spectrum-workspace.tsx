@@ -4,13 +4,13 @@
  * what they came from, the settings panel that runs a new analysis, and the exports.
  * The view is kept in the address (?view=phase) so a link shows what its sender saw.
  */
-import { Suspense, useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { Suspense, useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { useSearchParams } from 'react-router';
 import { lineshape as computeLineshape } from '../../../../analysis/linewidth/lineshape';
 import type { Analysis, AnalysisSettings } from '../../../../server/contracts/analyses';
 import { fileStem } from '../../../components/plots/plot-export';
 import { bandMean, VIEW_INFO, VIEWS, type SpectrumView } from '../../../components/plots/spectrum-math';
-import { SpectrumPlot } from '../../../components/plots/spectrum-plot';
+import { SpectrumPlot, type PlotMark } from '../../../components/plots/spectrum-plot';
 import { LoadingNote } from '../../../components/ui/notes';
 import { Mono } from '../../../components/ui/quantity';
 import { isApiError } from '../../../lib/api-client';
@@ -35,16 +35,20 @@ export interface SpectrumWorkspaceProps {
   context: { fileName?: string; laserName?: string | null };
   /** go to another analysis (a new one just queued) */
   onOpenAnalysis: (analysisId: string) => void;
+  /** people's marks on the capture, drawn on the plot */
+  marks?: readonly PlotMark[];
+  /** shown beside the plot once the spectrum is there (the list of marks) */
+  besidePlot?: ReactNode;
 }
 
-export function SpectrumWorkspace({ analysisId, canWrite, context, onOpenAnalysis }: SpectrumWorkspaceProps) {
+export function SpectrumWorkspace({ analysisId, canWrite, context, onOpenAnalysis, marks, besidePlot }: SpectrumWorkspaceProps) {
   const analysis = useAnalysis(analysisId);
   if (analysis.status !== 'done' || !analysis.result) {
     return <AnalysisUnderway analysis={analysis} canWrite={canWrite} />;
   }
   return (
     <Suspense fallback={<LoadingNote>Loading the spectrum…</LoadingNote>}>
-      <DoneWorkspace key={analysis.id} analysis={analysis} canWrite={canWrite} context={context} onOpenAnalysis={onOpenAnalysis} />
+      <DoneWorkspace key={analysis.id} analysis={analysis} canWrite={canWrite} context={context} onOpenAnalysis={onOpenAnalysis} marks={marks} besidePlot={besidePlot} />
     </Suspense>
   );
 }
@@ -55,7 +59,7 @@ const sameBand = (a: readonly [number, number] | null, b: readonly [number, numb
 /** three significant digits: what a person means by a band edge */
 const round3 = (v: number) => Number(v.toPrecision(3));
 
-function DoneWorkspace({ analysis, canWrite, context, onOpenAnalysis }: Omit<SpectrumWorkspaceProps, 'analysisId'> & { analysis: Analysis }) {
+function DoneWorkspace({ analysis, canWrite, context, onOpenAnalysis, marks, besidePlot }: Omit<SpectrumWorkspaceProps, 'analysisId'> & { analysis: Analysis }) {
   const spectrum = useSpectrum(analysis.id);
   const r = useMemo(() => readResult(analysis.result!), [analysis.result]);
   const [params, setParams] = useSearchParams();
@@ -119,24 +123,28 @@ function DoneWorkspace({ analysis, canWrite, context, onOpenAnalysis }: Omit<Spe
 
   return (
     <div className="flex flex-col gap-8" data-testid="spectrum-workspace">
-      <div>
-        <div className="mb-3 flex flex-wrap items-center justify-between gap-4">
-          <ViewSwitch view={view} onChange={setView} />
-          <ExportMenu analysis={analysis} svgRef={svgRef} stem={stem} plotTitle={`${context.fileName ?? 'Spectrum'} — ${info.name} (${info.unit})`} context={context} />
+      <div className={besidePlot ? 'grid grid-cols-[minmax(0,1fr)_17rem] gap-8' : undefined}>
+        <div className="min-w-0">
+          <div className="mb-3 flex flex-wrap items-center justify-between gap-4">
+            <ViewSwitch view={view} onChange={setView} />
+            <ExportMenu analysis={analysis} svgRef={svgRef} stem={stem} plotTitle={`${context.fileName ?? 'Spectrum'} — ${info.name} (${info.unit})`} context={context} />
+          </div>
+          <SpectrumPlot
+            key={analysis.id}
+            series={series}
+            view={view}
+            band={band}
+            onBandChange={setBand}
+            floorHz2PerHz={moved ? (estimate?.meanHz2PerHz ?? null) : r.floorHz2PerHz}
+            observationTimeS={t0}
+            model={r.model ? { ...r.model, bandHz: r.model.bandHz ?? [series.frequencyHz[0] ?? 1, series.frequencyHz[series.frequencyHz.length - 1] ?? 10] } : null}
+            spurs={r.spurs}
+            marks={marks}
+            label={`${context.fileName ?? 'Capture'}: ${info.name}`}
+            svgRef={svgRef}
+          />
         </div>
-        <SpectrumPlot
-          key={analysis.id}
-          series={series}
-          view={view}
-          band={band}
-          onBandChange={setBand}
-          floorHz2PerHz={moved ? (estimate?.meanHz2PerHz ?? null) : r.floorHz2PerHz}
-          observationTimeS={t0}
-          model={r.model ? { ...r.model, bandHz: r.model.bandHz ?? [series.frequencyHz[0] ?? 1, series.frequencyHz[series.frequencyHz.length - 1] ?? 10] } : null}
-          spurs={r.spurs}
-          label={`${context.fileName ?? 'Capture'}: ${info.name}`}
-          svgRef={svgRef}
-        />
+        {besidePlot && <div className="min-w-0">{besidePlot}</div>}
       </div>
 
       <div className="grid grid-cols-[minmax(0,1fr)_17rem] gap-12">

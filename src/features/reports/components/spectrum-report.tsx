@@ -1,0 +1,262 @@
+/**
+ * The printable report of one spectrum: what was measured and how (figures with units and the
+ * settings they came from), the plot with its marks, the list of marks, and provenance (the file
+ * and its sha256, how it was taken, the analysis settings, the product version), ending with the
+ * laser-safety caution. Laid out on an A4 sheet: the browser's "Save as PDF" prints it as shown.
+ */
+import type { ReactNode } from 'react';
+import type { Analysis, AnalysisResult } from '../../../../server/contracts/analyses';
+import type { Capture } from '../../../../server/contracts/captures';
+import type { Laser } from '../../../../server/contracts/lasers';
+import { MARK_KIND_LABELS, type Mark } from '../../../../server/contracts/marks';
+import type { VersionResponse } from '../../../../server/contracts/reports';
+import { LaserSafetyNote } from '../../../components/layout/laser-safety-note';
+import { SpectrumPlot, type PlotMark } from '../../../components/plots/spectrum-plot';
+import { formatIsoDateTime } from '../../../lib/dates';
+import { formatFixed, formatScientific, formatSI, formatWavelengthNm } from '../../../lib/units';
+import './report-print.css';
+
+export interface SpectrumReportProps {
+  benchName: string;
+  laser: Laser | null;
+  capture: Capture;
+  /** a done analysis (its result is there) */
+  analysis: Analysis;
+  /** the display series: frequencies (Hz) and S_ν (Hz²/Hz) */
+  series: { frequencyHz: number[]; sNu: number[] };
+  marks: readonly Mark[];
+  /** the same marks as the plot draws them (number, colour) */
+  plotMarks: readonly PlotMark[];
+  version: VersionResponse;
+  printedAt: Date;
+}
+
+const num = (v: unknown): number | null => (typeof v === 'number' && Number.isFinite(v) ? v : null);
+const hz = (v: number | null, significant = 3) => (v === null ? '—' : formatSI(v, 'Hz', { significant }).text);
+const sci = (v: number | null, unit: string) => (v === null ? '—' : formatScientific(v, unit, 3).text);
+const hzBand = (b: readonly [number, number] | null) => (b ? `${hz(b[0])} – ${hz(b[1])}` : '—');
+
+const WINDOW_NAMES: Record<string, string> = { hann: 'Hann', 'blackman-harris': 'Blackman–Harris', 'flat-top': 'flat-top' };
+const KIND_NAMES: Record<string, string> = { phase: 'phase (rad)', iq: 'IQ (I and Q)', beat: 'beat note (real voltage)', frequency: 'instantaneous frequency (Hz)' };
+const SETUP_NAMES: Record<string, string> = {
+  heterodyne: 'heterodyne against a reference laser',
+  'self-heterodyne': 'delayed self-heterodyne',
+  'coherent-receiver': 'coherent (IQ) receiver',
+  other: 'other',
+};
+
+function read(result: AnalysisResult) {
+  const s = result.settings as Record<string, unknown>;
+  const m = result.noiseModel;
+  return {
+    input: result.input,
+    window: result.settings.window,
+    segment: result.settings.segment,
+    overlap: result.settings.overlap,
+    averages: result.settings.averages,
+    enbwHz: num(s.enbwHz),
+    detrend: typeof s.detrend === 'string' ? s.detrend : null,
+    floor: result.whiteFloor.valueHz2PerHz,
+    floorBand: result.whiteFloor.bandHz,
+    intrinsic: result.intrinsicLinewidthHz,
+    beta: result.betaLine,
+    fwhm: result.lineshape.fwhmHz,
+    model: m,
+    modelBand: (() => {
+      const b = (m as Record<string, unknown> | null)?.bandHz;
+      return Array.isArray(b) && b.length === 2 && num(b[0]) !== null && num(b[1]) !== null ? ([b[0], b[1]] as [number, number]) : null;
+    })(),
+    spurs: result.spurs,
+  };
+}
+
+function Section({ title, children, testId }: { title: string; children: ReactNode; testId?: string }) {
+  return (
+    <section className="report-keep mt-7" data-testid={testId}>
+      <h2 className="border-b border-rule pb-1.5 text-[0.8125rem] font-semibold tracking-wide text-ink uppercase">{title}</h2>
+      <div className="pt-2.5">{children}</div>
+    </section>
+  );
+}
+
+/** A two-column list of facts: term, value (numbers in JetBrains Mono). */
+function Facts({ rows }: { rows: [string, ReactNode][] }) {
+  return (
+    <dl className="grid grid-cols-[12rem_minmax(0,1fr)] gap-x-4 gap-y-1 text-[0.8125rem] leading-snug">
+      {rows.map(([term, value]) => (
+        <div key={term} className="contents">
+          <dt className="text-ink-faint">{term}</dt>
+          <dd className="min-w-0 break-words text-ink">{value}</dd>
+        </div>
+      ))}
+    </dl>
+  );
+}
+
+const mono = (text: string) => <span className="font-mono tabular-nums">{text}</span>;
+
+export function SpectrumReport({ benchName, laser, capture, analysis, series, marks, plotMarks, version, printedAt }: SpectrumReportProps) {
+  const r = read(analysis.result!);
+  const t0 = r.beta.observationTimeS;
+  const settingsLine = `${WINDOW_NAMES[r.window] ?? r.window} window · ${r.segment.toLocaleString('en-GB')}-sample segments · ${formatFixed(r.overlap * 100, '%', 0).text} overlap · ${r.averages.toLocaleString('en-GB')} averages · T₀ ${formatSI(t0, 's').text}`;
+  const requested = analysis.settings;
+  const requestedText =
+    Object.keys(requested).length === 0
+      ? 'the engine’s defaults'
+      : [
+          requested.window && `window ${requested.window}`,
+          requested.segment !== undefined && `segment ${requested.segment}`,
+          requested.overlap !== undefined && `overlap ${requested.overlap}`,
+          requested.observationTimeS !== undefined && `T₀ ${formatSI(requested.observationTimeS, 's').text}`,
+          requested.floorBandHz && `white-floor band ${hzBand(requested.floorBandHz)}`,
+        ]
+          .filter(Boolean)
+          .join(' · ');
+  const operatingPoint = [
+    capture.driveCurrentMa !== null && `drive current ${formatFixed(capture.driveCurrentMa, 'mA', 2, true).text}`,
+    capture.temperatureC !== null && `temperature ${formatFixed(capture.temperatureC, '°C', 2, true).text}`,
+    capture.outputPowerMw !== null && `output power ${formatFixed(capture.outputPowerMw, 'mW', 3, true).text}`,
+  ].filter(Boolean) as string[];
+  const p = capture.setupParams;
+
+  return (
+    <article className="report-sheet mx-auto box-content w-[180mm] bg-white px-[15mm] py-[14mm] text-ink shadow-[0_1px_3px_rgba(0,0,0,0.12)]" data-testid="spectrum-report">
+      <header className="border-b-2 border-ink pb-3">
+        <p className="text-xs font-medium tracking-wide text-ink-faint uppercase">Phaseloom · spectrum report</p>
+        <h1 className="mt-1 text-2xl font-semibold tracking-tight break-words" data-testid="report-title">
+          {capture.fileName}
+        </h1>
+        <p className="mt-1 text-sm text-ink-soft">
+          {laser ? `${laser.name}${laser.wavelengthNm !== null ? ` (${formatWavelengthNm(laser.wavelengthNm).text})` : ''} · ` : ''}
+          {benchName} · analysed {analysis.finishedAt ? mono(formatIsoDateTime(analysis.finishedAt)) : '—'}
+        </p>
+      </header>
+
+      <Section title="Figures" testId="report-figures">
+        <p className="mb-2 text-xs text-ink-faint">{settingsLine}</p>
+        <table className="w-full border-collapse text-[0.8125rem]">
+          <thead>
+            <tr className="border-b border-rule text-left text-xs text-ink-faint">
+              <th className="py-1 pr-3 font-medium">figure</th>
+              <th className="py-1 pr-3 font-medium">value</th>
+              <th className="py-1 font-medium">from</th>
+            </tr>
+          </thead>
+          <tbody className="align-top">
+            <Row name="Intrinsic linewidth" value={hz(r.intrinsic)} from="Δν = π·S_ν,white (Lorentzian FWHM)" />
+            <Row name="White floor S_ν,white" value={sci(r.floor, 'Hz²/Hz')} from={`mean over ${hzBand(r.floorBand)}${requested.floorBandHz ? ' (band given)' : ' (band found by the engine)'}`} />
+            <Row name="Integrated linewidth (β-separation line)" value={hz(r.beta.linewidthHz)} from={`area above β(f) from 1/T₀, T₀ = ${formatSI(t0, 's').text}; crossing at ${hz(r.beta.crossingHz)}`} />
+            <Row name="Lineshape FWHM" value={hz(r.fwhm)} from={`lineshape computed from the whole measured S_ν over T₀ = ${formatSI(t0, 's').text}`} />
+            {r.model && (
+              <>
+                <Row name="Noise model a₀" value={sci(r.model.whiteHz2PerHz, 'Hz²/Hz')} from="S_ν = a₀ + a₋₁/f + a₋₂/f², white term" />
+                <Row name="Noise model a₋₁" value={sci(r.model.flickerHz2, 'Hz²')} from="flicker (1/f) term" />
+                <Row name="Noise model a₋₂" value={sci(r.model.randomWalkHz3, 'Hz³')} from="random-walk (1/f²) term" />
+                <Row name="1/f corner" value={hz(r.model.cornerHz)} from="where a₋₁/f meets a₀" />
+              </>
+            )}
+            <Row
+              name="Spurs above the model"
+              value={String(r.spurs.length)}
+              from={r.spurs.length ? r.spurs.slice(0, 8).map((s) => `${hz(s.frequencyHz)} (${formatFixed(s.heightDb, 'dB', 1).text})`).join(', ') + (r.spurs.length > 8 ? ', …' : '') : 'none found'}
+            />
+          </tbody>
+        </table>
+      </Section>
+
+      <section className="report-keep mt-7" data-testid="report-plot">
+        <h2 className="border-b border-rule pb-1.5 text-[0.8125rem] font-semibold tracking-wide text-ink uppercase">Frequency-noise PSD</h2>
+        <figure className="pt-2.5">
+          <SpectrumPlot
+            series={series}
+            view="frequency"
+            band={r.floorBand}
+            floorHz2PerHz={r.floor}
+            observationTimeS={t0}
+            model={r.model && r.model.whiteHz2PerHz !== null && r.model.flickerHz2 !== null && r.model.randomWalkHz3 !== null ? { whiteHz2PerHz: r.model.whiteHz2PerHz, flickerHz2: r.model.flickerHz2, randomWalkHz3: r.model.randomWalkHz3, bandHz: r.modelBand ?? [series.frequencyHz[0] ?? 1, series.frequencyHz[series.frequencyHz.length - 1] ?? 10] } : null}
+            spurs={r.spurs}
+            marks={plotMarks}
+            label={`${capture.fileName}: frequency-noise PSD S_ν (Hz²/Hz)`}
+            height={330}
+          />
+          <figcaption className="mt-1 text-xs text-ink-faint">
+            One-sided S_ν(f) in Hz²/Hz against offset frequency, Welch estimate ({settingsLine}). Shaded: the white-floor band; dashed: the
+            β-separation line β(f) = 8 ln2 · f/π²; numbered lines and bands: the marks listed below.
+          </figcaption>
+        </figure>
+      </section>
+
+      <Section title={`Marks · ${marks.length}`} testId="report-marks">
+        {marks.length === 0 ? (
+          <p className="text-[0.8125rem] text-ink-faint">No marks on this capture.</p>
+        ) : (
+          <table className="w-full border-collapse text-[0.8125rem]">
+            <thead>
+              <tr className="border-b border-rule text-left text-xs text-ink-faint">
+                <th className="w-8 py-1 pr-2 font-medium">#</th>
+                <th className="py-1 pr-3 font-medium">kind</th>
+                <th className="py-1 pr-3 font-medium">where</th>
+                <th className="py-1 pr-3 font-medium">note</th>
+                <th className="py-1 font-medium">by</th>
+              </tr>
+            </thead>
+            <tbody className="align-top">
+              {marks.map((m, i) => (
+                <tr key={m.id} className="border-b border-rule/60" data-testid="report-mark">
+                  <td className="py-1 pr-2 font-mono font-semibold" style={{ color: plotMarks[i]?.color }}>
+                    {i + 1}
+                  </td>
+                  <td className="py-1 pr-3 whitespace-nowrap">{MARK_KIND_LABELS[m.kind]}</td>
+                  <td className="py-1 pr-3 font-mono whitespace-nowrap tabular-nums">{m.bandHz ? hzBand(m.bandHz) : hz(m.frequencyHz, 4)}</td>
+                  <td className="py-1 pr-3 break-words">{m.text}</td>
+                  <td className="py-1 text-ink-soft">{m.authorName ?? '—'}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        )}
+      </Section>
+
+      <Section title="Provenance" testId="report-provenance">
+        <Facts
+          rows={[
+            ['file', capture.fileName],
+            ['sha256', <span key="sha" className="font-mono text-xs break-all">{capture.sha256}</span>],
+            ['size · format', mono(`${formatSI(capture.sizeBytes, 'B').text} · ${capture.format}${capture.dtype ? ` ${capture.dtype}` : ''}${capture.channels ? ` · ${capture.channels} ch` : ''}`)],
+            ['kind', KIND_NAMES[capture.kind] ?? capture.kind],
+            ['sample rate', mono(hz(capture.sampleRateHz ?? r.input.sampleRateHz, 6))],
+            ['record', mono(`${r.input.samples.toLocaleString('en-GB')} samples · ${formatSI(r.input.durationS, 's').text}`)],
+            [
+              'setup',
+              capture.setup
+                ? `${SETUP_NAMES[capture.setup]}${p?.referenceLinewidthHz !== undefined ? `, reference linewidth ${hz(p.referenceLinewidthHz)}` : ''}${p?.delayS !== undefined ? `, delay ${formatSI(p.delayS, 's').text}` : ''}`
+                : 'not stated',
+            ],
+            ['operating point', operatingPoint.length ? mono(operatingPoint.join(' · ')) : 'not stated'],
+            ['laser', laser ? `${laser.name}${laser.wavelengthNm !== null ? ` · ${formatWavelengthNm(laser.wavelengthNm).text}` : ''}` : 'none'],
+            ['uploaded', <span key="up">{capture.uploadedByName ?? '—'} · {mono(formatIsoDateTime(capture.createdAt))}</span>],
+            ['analysis settings', `${settingsLine}${r.enbwHz !== null ? ` · RBW (ENBW) ${hz(r.enbwHz)}` : ''}${r.detrend ? ` · detrend ${r.detrend}` : ''}`],
+            ['settings asked for', requestedText],
+            ['capture · analysis id', mono(`${capture.id} · ${analysis.id}`)],
+            ['product', mono(`${version.name} ${version.version}`)],
+            ['printed', mono(formatIsoDateTime(printedAt))],
+          ]}
+        />
+      </Section>
+
+      <footer className="report-keep mt-8 border-t border-rule pt-3" data-testid="report-caution">
+        <LaserSafetyNote />
+      </footer>
+    </article>
+  );
+}
+
+function Row({ name, value, from }: { name: string; value: string; from: string }) {
+  return (
+    <tr className="border-b border-rule/60">
+      <td className="py-1 pr-3 text-ink-soft">{name}</td>
+      <td className="py-1 pr-3 font-mono font-medium whitespace-nowrap tabular-nums">{value}</td>
+      <td className="py-1 text-xs leading-snug text-ink-faint">{from}</td>
+    </tr>
+  );
+}

@@ -108,6 +108,11 @@ export const apiPaths = {
     signOut: () => `${api}/auth/sign-out`,
   },
   me: () => `${api}/me`,
+  /** personal API tokens: GET lists, POST makes one; DELETE …/:tokenId revokes */
+  apiTokens: {
+    list: () => `${api}/me/tokens`,
+    detail: (tokenId: string) => `${api}/me/tokens/${seg(tokenId)}`,
+  },
   benches: {
     list: () => `${api}/benches`,
     detail: (benchId: string) => `${api}/benches/${seg(benchId)}`,

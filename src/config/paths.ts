@@ -63,6 +63,15 @@ export const paths = {
       path: '/benches/:benchId/lasers/:laserId',
       getHref: (benchId: string, laserId: string) => `/benches/${seg(benchId)}/lasers/${seg(laserId)}`,
     },
+    /** a laser's predicted linewidth (the estimator) beside its measured sweep against output power */
+    laserModel: {
+      path: '/benches/:benchId/lasers/:laserId/model',
+      getHref: (benchId: string, laserId: string) => `/benches/${seg(benchId)}/lasers/${seg(laserId)}/model`,
+    },
+    /** coherent-link phase-noise budgets: evaluate, and the bench's saved ones */
+    linkBudgets: { path: '/benches/:benchId/link-budgets', getHref: (benchId: string) => `/benches/${seg(benchId)}/link-budgets` },
+    /** rate-equation simulations that write synthetic captures onto the bench */
+    simulations: { path: '/benches/:benchId/simulations', getHref: (benchId: string) => `/benches/${seg(benchId)}/simulations` },
     /** a laser's linewidths against an operating parameter */
     sweep: {
       path: '/benches/:benchId/lasers/:laserId/sweep',
@@ -128,8 +137,16 @@ export const apiPaths = {
     sweep: (benchId: string, laserId: string, parameter: string) =>
       `${api}/benches/${seg(benchId)}/lasers/${seg(laserId)}/sweep${queryString({ parameter })}`,
     overlays: (benchId: string) => `${api}/benches/${seg(benchId)}/overlays`,
+    linkBudgets: (benchId: string) => `${api}/benches/${seg(benchId)}/link-budgets`,
+    simulations: (benchId: string) => `${api}/benches/${seg(benchId)}/simulations`,
     shareLinks: (benchId: string) => `${api}/benches/${seg(benchId)}/share-links`,
   },
+  linkBudgets: {
+    evaluate: () => `${api}/link-budgets/evaluate`,
+    detail: (budgetId: string) => `${api}/link-budgets/${seg(budgetId)}`,
+  },
+  laserEstimates: () => `${api}/laser-estimates`,
+  simulations: { detail: (simulationId: string) => `${api}/simulations/${seg(simulationId)}` },
   captures: {
     detail: (captureId: string) => `${api}/captures/${seg(captureId)}`,
     analyses: (captureId: string) => `${api}/captures/${seg(captureId)}/analyses`,

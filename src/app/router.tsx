@@ -14,14 +14,18 @@ import { benchesLoader, BenchesRoute } from './routes/benches';
 import { captureUploadHandle, captureUploadLoader, CaptureUploadRoute } from './routes/capture-upload';
 import { laserLoader, LaserRoute } from './routes/laser';
 import { NotFoundRoute } from './routes/not-found';
+import { overlayLoader, OverlayRoute } from './routes/overlay';
+import { overlaysLoader, OverlaysRoute } from './routes/overlays';
 import { reportLoader, ReportRoute } from './routes/report';
 import { rfSpectraLoader, RfSpectraRoute } from './routes/rf-spectra';
 import { rfSpectrumLoader, RfSpectrumRoute } from './routes/rf-spectrum';
 import { RootHydrateFallback, RootLayout } from './routes/root-layout';
 import { RootError, RouteError } from './routes/route-error';
+import { SharedError, sharedLoader, SharedRoute } from './routes/shared';
 import { signInLoader, SignInRoute } from './routes/sign-in';
 import { signUpLoader, SignUpRoute } from './routes/sign-up';
 import { spectrumHandle, spectrumLoader, SpectrumRoute } from './routes/spectrum';
+import { sweepLoader, SweepRoute } from './routes/sweep';
 
 export function createAppRouter(queryClient: QueryClient) {
   return createBrowserRouter([
@@ -71,11 +75,15 @@ export function createAppRouter(queryClient: QueryClient) {
               handle: spectrumHandle,
             },
             { path: paths.benches.laser.path, loader: laserLoader(queryClient), Component: LaserRoute, ErrorBoundary: RouteError },
+            { path: paths.benches.sweep.path, loader: sweepLoader(queryClient), Component: SweepRoute, ErrorBoundary: RouteError },
+            { path: paths.benches.overlays.path, loader: overlaysLoader(queryClient), Component: OverlaysRoute, ErrorBoundary: RouteError },
+            { path: paths.benches.overlay.path, loader: overlayLoader(queryClient), Component: OverlayRoute, ErrorBoundary: RouteError },
             { path: paths.benches.rfSpectra.path, loader: rfSpectraLoader(queryClient), Component: RfSpectraRoute, ErrorBoundary: RouteError },
             { path: paths.benches.rfSpectrum.path, loader: rfSpectrumLoader(queryClient), Component: RfSpectrumRoute, ErrorBoundary: RouteError },
             { path: paths.account.path, loader: accountLoader(queryClient), Component: AccountRoute, ErrorBoundary: RouteError },
           ],
         },
+        { path: paths.shared.path, loader: sharedLoader(queryClient), Component: SharedRoute, ErrorBoundary: SharedError },
         { path: '*', Component: NotFoundRoute },
       ],
     },

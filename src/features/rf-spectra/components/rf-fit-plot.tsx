@@ -1,6 +1,6 @@
 /**
  * The measured RF beat spectrum with the fitted Lorentzian, Gaussian and Voigt lines (D3 scales,
- * React-drawn SVG). The y-axis reads in dB (10·log₁₀ of the power in mW, i.e. dBm) or in linear mW; the
+ * React-drawn SVG): the measured points under the fitted lines. The y-axis reads in dB (10·log₁₀ of the power in mW, i.e. dBm) or in linear mW; the
  * −20 dB crossings, when found, are marked. The table beside it is the accessible reading of the figures.
  */
 import { line as d3line, scaleLinear } from 'd3';
@@ -64,6 +64,7 @@ export function RfFitPlot({ spectrum, scale, height = 380 }: { spectrum: RfSpect
       .y((v) => y(toY(v)))(values as number[]) ?? '';
 
   const twenty = result.twentyDb;
+  const stride = Math.max(1, Math.ceil(f.length / 2000));
   const peak = Math.max(...trace.powerMw);
 
   return (
@@ -73,7 +74,7 @@ export function RfFitPlot({ spectrum, scale, height = 380 }: { spectrum: RfSpect
           <rect width={width} height={height} fill={T.paper} />
           <g transform={`translate(${M.left},14)`} fontSize={11} fill={T.inkSoft}>
             <g>
-              <line x1={0} x2={18} y1={0} y2={0} stroke={T.trace} strokeWidth={1.2} />
+              <circle cx={9} cy={0} r={2.2} fill={T.trace} />
               <text x={24} dy="0.35em">
                 measured
               </text>
@@ -131,7 +132,12 @@ export function RfFitPlot({ spectrum, scale, height = 380 }: { spectrum: RfSpect
                 </text>
               </g>
             )}
-            <path d={path(trace.powerMw)} fill="none" stroke={T.trace} strokeWidth={1.1} strokeOpacity={0.9} data-testid="trace-measured" />
+            {/* the measured points under the fitted lines (at most about 2000 drawn) */}
+            <g fill={T.trace} data-testid="trace-measured" data-points={trace.powerMw.length}>
+              {trace.powerMw.map((p, i) =>
+                i % stride === 0 ? <circle key={i} cx={x(f[i])} cy={y(toY(p))} r={1.5} fillOpacity={0.55} /> : null,
+              )}
+            </g>
             {SHAPES.map((s) => {
               const m = trace.models[s];
               return m ? (

@@ -52,11 +52,16 @@ export function LaserRoute() {
           </>
         }
         actions={
-          canWrite ? (
-            <ButtonLink to={paths.benches.upload.getHref(bench.id, laser.id)} variant="primary">
-              Upload a capture
+          <div className="flex items-center gap-3">
+            <ButtonLink to={paths.benches.sweep.getHref(bench.id, laser.id)} data-testid="laser-sweep">
+              Linewidth sweep
             </ButtonLink>
-          ) : undefined
+            {canWrite && (
+              <ButtonLink to={paths.benches.upload.getHref(bench.id, laser.id)} variant="primary">
+                Upload a capture
+              </ButtonLink>
+            )}
+          </div>
         }
       />
       <Section id="laser-spectra" className="mt-10" title="Spectra over time" lede="Intrinsic and β-line linewidths of this laser's analysed captures, by date.">

@@ -20,6 +20,7 @@ import { marksQueryOptions, useMarks } from '../../features/marks/api/list-marks
 import { CommentThread } from '../../features/marks/components/comment-thread';
 import { toPlotMarks } from '../../features/marks/components/mark-style';
 import { MarksPanel } from '../../features/marks/components/marks-panel';
+import { ShareControl } from '../../features/share-links/components/share-control';
 import { analysisQueryOptions, useAnalysis } from '../../features/spectra/api/get-analysis';
 import { SpectrumWorkspace } from '../../features/spectra/components/spectrum-workspace';
 import type { RouteHandle } from './app-layout';
@@ -81,6 +82,12 @@ export function SpectrumRoute() {
                 Print report
               </ButtonLink>
             )}
+            {analysis.status === 'done' && canWrite && (
+              <ButtonLink size="sm" to={paths.benches.overlays.getHref(bench.id, analysis.id)} data-testid="add-to-overlay">
+                Add to overlay
+              </ButtonLink>
+            )}
+            {analysis.status === 'done' && canWrite && <ShareControl benchId={bench.id} target={{ kind: 'analysis', id: analysis.id }} />}
             {canDelete && <DeleteCaptureControl captureId={capture.id} fileName={capture.fileName} onDeleted={() => navigate(paths.benches.home.getHref(bench.id), { replace: true })} />}
           </div>
         }

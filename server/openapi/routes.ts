@@ -38,6 +38,15 @@ import {
   CreateCaptureResponse,
 } from '../contracts/captures';
 import { CommentResponse, CommentsResponse, CreateCommentRequest } from '../contracts/comments';
+import {
+  AcceptInvitationRequest,
+  AcceptInvitationResponse,
+  CreateInvitationRequest,
+  InvitationListResponse,
+  InvitationPreviewResponse,
+  InvitationResponse,
+  InvitationTokenRequest,
+} from '../contracts/invitations';
 import { LaserEstimateRequest, LaserEstimateResponse } from '../contracts/laser-estimates';
 import { CreateLaserRequest, LaserListResponse, LaserResponse, UpdateLaserRequest } from '../contracts/lasers';
 import {
@@ -48,7 +57,16 @@ import {
   SaveLinkBudgetRequest,
 } from '../contracts/link-budgets';
 import { CreateMarkRequest, MarkResponse, MarksResponse, UpdateMarkRequest } from '../contracts/marks';
+import { NotificationSettings, NotificationSettingsResponse } from '../contracts/notifications';
+import { OutboxListQuery, OutboxListResponse } from '../contracts/outbox';
 import { CreateOverlayRequest, OverlayListResponse, OverlayResponse, UpdateOverlayRequest } from '../contracts/overlays';
+import {
+  PasswordResetCheckResponse,
+  PasswordResetConfirmRequest,
+  PasswordResetRequest,
+  PasswordResetRequestedResponse,
+  PasswordResetTokenRequest,
+} from '../contracts/password-resets';
 import { VersionResponse } from '../contracts/reports';
 import { RfSpectrumListResponse, RfSpectrumResponse, RfSpectrumUploadFields } from '../contracts/rf-spectra';
 import {
@@ -72,6 +90,12 @@ export const ROUTES: RouteSpec[] = [
   { route: 'POST /api/auth/sign-in', who: 'anyone', public: true, what: 'sign in (session cookie)', body: SignInRequest, reply: UserResponse, status: 200, errors: [429] },
   { route: 'POST /api/auth/sign-out', who: 'anyone', public: true, what: 'end this session, clear the cookie' },
   { route: 'GET /api/me', who: 'signed in', what: 'the signed-in account', reply: UserResponse },
+  { route: 'POST /api/password-resets', who: 'anyone', public: true, what: 'e-mail a password-reset link (same answer for any address)', body: PasswordResetRequest, reply: PasswordResetRequestedResponse, status: 202, errors: [429] },
+  { route: 'POST /api/password-resets/check', who: 'anyone with the link', public: true, what: 'is this reset link still good?', body: PasswordResetTokenRequest, reply: PasswordResetCheckResponse, status: 200, errors: [404, 410] },
+  { route: 'POST /api/password-resets/confirm', who: 'anyone with the link', public: true, what: 'choose the new password (ends other sessions)', body: PasswordResetConfirmRequest, errors: [404, 410] },
+  { route: 'GET /api/notification-settings', who: 'signed in', what: 'my e-mail notices', reply: NotificationSettingsResponse },
+  { route: 'PUT /api/notification-settings', who: 'signed in', what: 'turn e-mail notices on or off', body: NotificationSettings, reply: NotificationSettingsResponse },
+  { route: 'GET /api/outbox', who: 'anyone (development and test only; absent in production)', public: true, what: 'e-mail kept by the local mail catcher', query: OutboxListQuery, reply: OutboxListResponse },
   { route: 'GET /api/me/tokens', who: 'signed in', what: 'my personal API tokens (never their secrets)', reply: ApiTokenListResponse },
   { route: 'POST /api/me/tokens', who: 'signed in (session only)', what: 'make a personal API token; the secret is in this reply only', body: CreateApiTokenRequest, reply: CreatedApiTokenResponse },
   { route: 'DELETE /api/me/tokens/:id', who: 'signed in (its owner)', what: 'revoke a personal API token' },
@@ -86,6 +110,10 @@ export const ROUTES: RouteSpec[] = [
   { route: 'POST /api/benches/:benchId/members', who: 'owner', what: 'add an existing account with a role', body: AddMemberRequest, reply: MemberResponse, errors: [409] },
   { route: 'PATCH /api/benches/:benchId/members/:userId', who: 'owner', what: 'change a member’s role', body: UpdateMemberRequest, reply: MemberResponse, errors: [409] },
   { route: 'DELETE /api/benches/:benchId/members/:userId', who: 'owner, or the member themselves', what: 'remove a member / leave the bench', errors: [409] },
+  { route: 'GET /api/benches/:benchId/invitations', who: 'owner', what: 'invitations sent for this bench', reply: InvitationListResponse },
+  { route: 'POST /api/benches/:benchId/invitations', who: 'owner', what: 'invite an e-mail address with a role (single-use link, 7 days)', body: CreateInvitationRequest, reply: InvitationResponse, errors: [409] },
+  { route: 'POST /api/invitations/preview', who: 'anyone with the link', public: true, what: 'the bench and role an invitation offers', body: InvitationTokenRequest, reply: InvitationPreviewResponse, status: 200, errors: [404, 410] },
+  { route: 'POST /api/invitations/accept', who: 'anyone with the link (signed in as the invited address, or making the account)', public: true, what: 'accept: join the bench, making the account if needed', body: AcceptInvitationRequest, reply: AcceptInvitationResponse, status: 200, errors: [404, 409, 410] },
   { route: 'GET /api/benches/:benchId/lasers', who: 'any member', what: 'the bench’s lasers', reply: LaserListResponse },
   { route: 'POST /api/benches/:benchId/lasers', who: 'owner, analyst', what: 'add a laser', body: CreateLaserRequest, reply: LaserResponse, errors: [409] },
   { route: 'GET /api/benches/:benchId/lasers/:laserId', who: 'any member', what: 'one laser', reply: LaserResponse },

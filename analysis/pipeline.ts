@@ -36,7 +36,7 @@ import { type BetaLineReport, betaLine } from './linewidth/beta-line';
 import { type LineshapeReport, lineshape } from './linewidth/lineshape';
 import { type WhiteFloorReport, whiteFloor } from './linewidth/white-floor';
 import { type NoiseModelFitResult, fitNoiseModel } from './noise/model-fit';
-import { type SpectralBump, type SpurLine, findSpectralFeatures } from './noise/spurs';
+import { type SpectralBump, type SpurLine, addLineBlocks, findSpectralFeatures, removeLines } from './noise/spurs';
 import { createFrequencyStage } from './phase/frequency-stage';
 import { equivalentAverages } from './spectrum/equivalent-averages';
 import { logBinSpectrum } from './spectrum/log-binning';
@@ -129,8 +129,9 @@ export interface AnalysisReport {
   betaLine: { observationTimeS: number; crossingHz: number | null; areaHz2: number; linewidthHz: number };
   lineshape: { fwhmHz: number | null };
   noiseModel: { whiteHz2PerHz: number; flickerHz2: number; randomWalkHz3: number; cornerHz: number | null };
-  /** narrow lines above the noise model; powerHz2 = the line's power (an FM tone of peak deviation Δ: Δ²/2) */
-  spurs: (Spur & { powerHz2: number })[];
+  /** narrow lines above the noise model; powerHz2 = the line's power (an FM tone of peak deviation Δ: Δ²/2),
+   *  resolutionHz = the bin width the height was read at */
+  spurs: (Spur & { powerHz2: number; resolutionHz: number })[];
   /** broad features above the noise model (relaxation-oscillation, servo bumps) */
   bumps: { centerHz: number; widthHz: number; heightDb: number; powerHz2: number }[];
   carrier: { offsetHz: number; driftHzPerS: number; intermediateFrequencyHz?: number };
@@ -430,9 +431,13 @@ export async function analyzeCapture(source: CaptureSource, options: AnalyzeOpti
           ...(floorMaxHz > logSpectrum.reliableFromHz ? { maxHz: floorMaxHz } : {}),
         },
   );
-  // the log view's points are bin averages: read them linearly, so spectral lines keep their power
-  const beta = betaLine(logSpectrum, { observationTimeS: T0, maxHz: trustedTopHz, interpolation: 'linear' });
-  const shape = lineshape(logSpectrum, {
+  // β-line and lineshape integrate S_ν: the log view's points are bin averages, read linearly so that
+  // ∫S df is kept; each spur is taken out of the stitched spectrum (its leakage may show in two cascade
+  // stages) and put back as one block of its measured power
+  const integrand =
+    spurs.length > 0 ? addLineBlocks(logBinned(removeLines(spectrum, spurs), LOG_POINTS_PER_DECADE), spurs) : logSpectrum;
+  const beta = betaLine(integrand, { observationTimeS: T0, maxHz: trustedTopHz, interpolation: 'linear' });
+  const shape = lineshape(integrand, {
     observationTimeS: T0,
     maxHz: trustedTopHz,
     tailLevelHz2PerHz: floor.valueHz2PerHz,
@@ -441,6 +446,12 @@ export async function analyzeCapture(source: CaptureSource, options: AnalyzeOpti
 
   warnings.push(...summary.warnings, ...noiseModel.warnings, ...floor.warnings, ...beta.warnings, ...shape.warnings);
   const notes = [...new Set([...noiseModel.notes, ...floor.notes, ...beta.notes, ...shape.notes])];
+  if (spurs.length > 0) {
+    notes.push(
+      `the β-line and the lineshape take ${spurs.length === 1 ? 'the spur' : `each of the ${spurs.length} spurs`} as one line of ` +
+        'its measured power, its leakage into neighbouring bins replaced by the background',
+    );
+  }
 
   const report: AnalysisReport = {
     input: {
@@ -474,7 +485,7 @@ export async function analyzeCapture(source: CaptureSource, options: AnalyzeOpti
       randomWalkHz3: noiseModel.randomWalkHz3,
       cornerHz: noiseModel.cornerHz,
     },
-    spurs: spurs.map((s) => ({ frequencyHz: s.frequencyHz, heightDb: s.heightDb, powerHz2: s.powerHz2 })),
+    spurs: spurs.map((s) => ({ frequencyHz: s.frequencyHz, heightDb: s.heightDb, powerHz2: s.powerHz2, resolutionHz: s.resolutionHz })),
     bumps: bumps.map((b) => ({ centerHz: b.centerHz, widthHz: b.widthHz, heightDb: b.heightDb, powerHz2: b.powerHz2 })),
     carrier: {
       offsetHz: summary.carrierOffsetHz,

@@ -61,6 +61,8 @@ export interface SpurOptions {
 export interface SpurLine extends Spur {
   /** power of the line above the model over its main lobe, Hz² (an FM tone of peak deviation Δ: Δ²/2) */
   powerHz2: number;
+  /** frequency resolution (bin width) at the line, Hz: the height in dB is read at this RBW × the window's ENBW */
+  resolutionHz: number;
 }
 
 /** A broad feature above the model (relaxation-oscillation or servo bump). */
@@ -251,7 +253,7 @@ export function findSpectralFeatures(spectrum: Spectrum, model: NoiseModelCoeffi
         if (stage && stage[i] !== stage[p]) continue;
         if (Math.abs(f[i] - f[p]) <= (o.lobe + 0.5) * r) power += (s[i] - m[i]) * step(i);
       }
-      spurs.push({ frequencyHz: refinePeak(f, s, p), heightDb: 10 * Math.log10(g.peakRatio), powerHz2: power });
+      spurs.push({ frequencyHz: refinePeak(f, s, p), heightDb: 10 * Math.log10(g.peakRatio), powerHz2: power, resolutionHz: r });
       continue;
     }
     // a bump: smoothed maximum within the group, half-excess points, reach
@@ -306,4 +308,84 @@ export function findSpectralFeatures(spectrum: Spectrum, model: NoiseModelCoeffi
 /** The narrow lines only (see findSpectralFeatures). */
 export function findSpurs(spectrum: Spectrum, model: NoiseModelCoefficients, options: SpurOptions = {}): SpurLine[] {
   return findSpectralFeatures(spectrum, model, options).spurs;
+}
+
+/**
+ * A copy of a Welch-binned spectrum with each line's footprint taken out: every point within
+ * (h + ½)·r of a line (r its own resolution, h the window's main-lobe half width, as above) is replaced by
+ * the straight line between the nearest points outside the footprints. A cascade sees a line in every
+ * stage, and the stitched spectrum can show its leakage in two stages at once near a stage boundary; the
+ * figures that integrate S_ν (β-line, lineshape) then take the line back as one block of its measured
+ * power (`addLineBlocks`), so it is counted once. Other fields of the spectrum are kept as they are.
+ */
+export function removeLines<T extends Spectrum>(spectrum: T, lines: readonly { frequencyHz: number }[], options: { window?: WindowName } = {}): T {
+  checkSpectrum(spectrum, 'removeLines');
+  const f = spectrum.frequencyHz;
+  const n = f.length;
+  const named = (spectrum as Spectrum & { window?: unknown }).window;
+  const window = typeof named === 'string' && named in MAIN_LOBE_BINS ? (named as WindowName) : (options.window ?? 'hann');
+  const lobe = MAIN_LOBE_BINS[window] ?? 2;
+  const extra = spectrum as Spectrum & { resolutionHz?: unknown };
+  const resolution = extra.resolutionHz instanceof Float64Array && extra.resolutionHz.length === n ? extra.resolutionHz : null;
+  const step = (i: number): number => {
+    if (resolution) return resolution[i];
+    const left = i > 0 ? f[i] - f[i - 1] : Infinity;
+    const right = i + 1 < n ? f[i + 1] - f[i] : Infinity;
+    return Math.min(left, right);
+  };
+  const out = Float64Array.from(spectrum.psd);
+  const inside = new Uint8Array(n);
+  for (const line of lines) {
+    for (let i = 0; i < n; i++) if (Math.abs(f[i] - line.frequencyHz) <= (lobe + 0.5) * step(i)) inside[i] = 1;
+  }
+  for (let i = 0; i < n; ) {
+    if (!inside[i]) {
+      i++;
+      continue;
+    }
+    let j = i;
+    while (j + 1 < n && inside[j + 1]) j++;
+    const a = i - 1;
+    const b = j + 1;
+    for (let k = i; k <= j; k++) {
+      if (a >= 0 && b < n) out[k] = out[a] + ((out[b] - out[a]) * (f[k] - f[a])) / (f[b] - f[a]);
+      else out[k] = a >= 0 ? out[a] : b < n ? out[b] : out[k];
+    }
+    i = j + 1;
+  }
+  return { ...spectrum, psd: out };
+}
+
+/**
+ * The spectrum with each line added back as a block of height P/w over [f − w/2, f + w/2] (w = the
+ * line's resolution), so an integral of S_ν read linearly between points holds exactly its power P, and a
+ * β-line test compares P/w — the line's density at the analysis resolution — with β(f). Grid points
+ * inside a block are dropped (the block's edges carry the background there). Returns a plain Spectrum.
+ */
+export function addLineBlocks(spectrum: Spectrum, lines: readonly { frequencyHz: number; powerHz2: number; resolutionHz: number }[]): Spectrum {
+  checkSpectrum(spectrum, 'addLineBlocks');
+  const f = Array.from(spectrum.frequencyHz);
+  const s = Array.from(spectrum.psd);
+  for (const line of [...lines].sort((p, q) => p.frequencyHz - q.frequencyHz)) {
+    const w = line.resolutionHz;
+    if (!(line.powerHz2 > 0) || !(w > 0) || !(line.frequencyHz - w / 2 > f[0]) || !(line.frequencyHz + w / 2 < f[f.length - 1])) continue;
+    const lo = line.frequencyHz - w / 2;
+    const hi = line.frequencyHz + w / 2;
+    const eps = 1e-6 * w;
+    const level = (x: number) => {
+      let j = 1;
+      while (f[j] < x) j++;
+      return s[j - 1] + ((s[j] - s[j - 1]) * (x - f[j - 1])) / (f[j] - f[j - 1]);
+    };
+    const bgLo = level(lo - eps);
+    const bgHi = level(hi + eps);
+    const top = line.powerHz2 / w;
+    let first = 0;
+    while (f[first] < lo - eps) first++;
+    let last = first;
+    while (last < f.length && f[last] <= hi + eps) last++;
+    f.splice(first, last - first, lo - eps, lo, hi, hi + eps);
+    s.splice(first, last - first, bgLo, bgLo + top, bgHi + top, bgHi);
+  }
+  return { frequencyHz: Float64Array.from(f), psd: Float64Array.from(s) };
 }

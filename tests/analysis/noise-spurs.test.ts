@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 
 import { AnalysisInputError } from '../../analysis/errors';
 import { fitNoiseModel } from '../../analysis/noise/model-fit';
-import { findSpectralFeatures, findSpurs } from '../../analysis/noise/spurs';
+import { addLineBlocks, findSpectralFeatures, findSpurs, removeLines } from '../../analysis/noise/spurs';
 import type { Spectrum } from '../../analysis/types';
 import { linearSpectrum, withWelchScatter } from '../fixtures/linewidth/spectra';
 
@@ -167,6 +167,63 @@ describe('findSpectralFeatures(welch, model) tells narrow lines from broad bumps
     expect(rel(named.spurs[0].powerHz2, 3.7702 * peak)).toBeLessThan(0.02);
     // summed over Hann's ±2.5 bins instead, the power misses the flat top's outer lobe (−9 dB at 2.6 bins)
     expect(findSpurs(s, model)[0].powerHz2).toBeLessThan(0.95 * 3.7702 * peak);
+  });
+});
+
+/** ∫S df read linearly between the points (trapezoid rule) */
+function trapezoid(sp: Spectrum): number {
+  let a = 0;
+  for (let i = 0; i + 1 < sp.frequencyHz.length; i++) {
+    a += 0.5 * (sp.psd[i] + sp.psd[i + 1]) * (sp.frequencyHz[i + 1] - sp.frequencyHz[i]);
+  }
+  return a;
+}
+
+describe('removeLines and addLineBlocks count a line once, with its measured power', () => {
+  it('removeLines replaces the ±2.5-bin Hann footprint by the straight line between its neighbours', () => {
+    const s = welchWithLines([{ hz: 300.4, db: 30 }], 12);
+    const clean = removeLines(s, [{ frequencyHz: 300.4 }]);
+    // bins 298..302 (|m − 300.4| <= 2.5) lie between bins 297 and 303
+    for (let m = 298; m <= 302; m++) {
+      const expected = s.psd[296] + ((s.psd[302] - s.psd[296]) * (m - 297)) / 6;
+      expect(clean.psd[m - 1]).toBeCloseTo(expected, 9);
+    }
+    expect(clean.psd[296]).toBe(s.psd[296]);
+    expect(clean.psd[302]).toBe(s.psd[302]);
+    expect(clean.frequencyHz).toBe(s.frequencyHz);
+  });
+
+  it('removeLines reads each point’s own resolution: a coarser-stage bin holding the line’s leakage is taken out too', () => {
+    // a stitched grid: 1 Hz bins up to 60 Hz, then 4 Hz bins (a shallower stage); a line at 58.6 Hz fills
+    // the fine bins 57–60 and leaks into the coarse 64 and 68 Hz bins (within 2.5 × 4 Hz of the line)
+    const f = [...Array.from({ length: 60 }, (_, i) => i + 1), ...Array.from({ length: 20 }, (_, i) => 64 + 4 * i)];
+    const resolutionHz = Float64Array.from(f, (x) => (x <= 60 ? 1 : 4));
+    const psd = Float64Array.from(f, (x) => (x >= 57 && x <= 60 ? 1e3 : x === 64 || x === 68 ? 50 : x === 56 ? 7 : 1));
+    const clean = removeLines({ frequencyHz: Float64Array.from(f), psd, resolutionHz } as Spectrum, [{ frequencyHz: 58.6 }]);
+    const at = (x: number) => clean.psd[f.indexOf(x)];
+    // 56 Hz is 2.6 fine bins away: kept; the footprint 57…68 Hz runs straight from 7 (56 Hz) to 1 (72 Hz)
+    expect(at(56)).toBe(7);
+    expect(at(72)).toBe(1);
+    for (const x of [57, 58, 59, 60, 64, 68]) expect(at(x)).toBeCloseTo(7 + ((1 - 7) * (x - 56)) / 16, 12);
+  });
+
+  it('addLineBlocks adds exactly P to ∫S df (read linearly), as a block P/w wide w at the line', () => {
+    const base = linearSpectrum(1, 1, 1024, modelAt);
+    const blocked = addLineBlocks(base, [{ frequencyHz: 300.4, powerHz2: 5e6, resolutionHz: 1 }]);
+    // the block's edges rise over 1e-6 of its width: 1e-6 of P
+    expect(rel(trapezoid(blocked) - trapezoid(base), 5e6)).toBeLessThan(2e-6);
+    const k = blocked.frequencyHz.findIndex((x) => x >= 299.9);
+    expect(blocked.frequencyHz[k]).toBeCloseTo(299.9, 9);
+    expect(blocked.psd[k] - modelAt(299.9)).toBeCloseTo(5e6, -2);
+  });
+
+  it('remove then add: ∫S df of a Welch line spectrum keeps the background plus the line power Σ(S − M)·r', () => {
+    const s = welchWithLines([{ hz: 300.4, db: 30 }], 13);
+    const [line] = findSpurs(s, model);
+    const rebuilt = addLineBlocks(removeLines(s, [line]), [line]);
+    // the line's power is 1.5 bins × its on-bin peak (Hann ENBW, METHODS 1.2)
+    const power = 1.5 * modelAt(300.4) * 1e3;
+    expect(rel(trapezoid(rebuilt) - trapezoid(removeLines(s, [line])), power)).toBeLessThan(0.02);
   });
 });
 

@@ -9,9 +9,13 @@
  *       chooses) reach down to about 1/T0. One pass serves both:
  *       the stitched spectrum (every Welch bin, from the finest stage serving it) and, binned to 30
  *       points per decade, the log view the figures are read from.
- *     → figures: noise model (noise/model-fit.ts), spurs on the stitched spectrum (noise/spurs.ts),
- *       white floor and intrinsic linewidth π·S_ν,white (linewidth/white-floor.ts),
- *       β-separation-line linewidth (linewidth/beta-line.ts), lineshape FWHM (linewidth/lineshape.ts).
+ *     → figures: noise model on the log view, each point weighted by its averages
+ *       (noise/model-fit.ts); spurs (narrow lines, with their power) and bumps (broad features, with
+ *       centre and width) on the stitched spectrum (noise/spurs.ts); white floor and intrinsic
+ *       linewidth π·S_ν,white, the fitted flicker/random-walk part subtracted (linewidth/white-floor.ts);
+ *       β-separation-line linewidth (linewidth/beta-line.ts) and lineshape FWHM (linewidth/lineshape.ts)
+ *       over the log view read linearly (bin averages keep ∫S df), each spur taken out of the stitched
+ *       spectrum and put back once as a line of its measured power.
  * The same code serves the CLI (node fs stream), the worker thread and the tests. Memory is bounded:
  * no stage holds the record; each chunk becomes one block of samples and is dropped after use.
  * Options are checked once at entry (one AnalysisInputError per broken rule); what depends on the
@@ -19,9 +23,13 @@
  * Units: Hz, s; every S_ν one-sided Hz²/Hz.
  * Defaults: window 'hann'; overlap 0.5; segment the largest power of two ≤ N/8 within [256, 65536]
  * (4096 when the record length cannot be estimated); per-segment linear detrend (removes the carrier
- * offset and a drift, METHODS 1.4 and 2.3); observation time T0 = the record length; white-floor band
- * found automatically above the first log-frequency point with ≥ 100 averages; spectra in the report
- * only with `series`.
+ * offset and a drift, METHODS 1.4 and 2.3); observation time T0 = the record length (the lowest log
+ * point, within 2/T0, is stretched flat down to 1/T0: linewidth/spectrum-grid.ts); white-floor band found
+ * automatically from the bottom of the reliable band (K ≥ 2, bin ≥ 4) up to fs/10 of the frequency series
+ * (METHODS 2.4) or a beat note's trusted top B/2 (METHODS 2.2), whichever is lower, bumps left out;
+ * spectra in the report only with `series`.
+ * Report: `warnings` say what may make a figure wrong; `notes` say which documented approximation or
+ * exclusion applied (a line left out of the fit, the flicker part subtracted from the floor, …).
  * Kind: given, or two channels → 'iq', or a CSV column name (phase, frequency, beat); otherwise the
  * kind must be given. Sample rate: given (wins, with a warning when the file states another), or
  * the file's (WAV header, CSV time column).

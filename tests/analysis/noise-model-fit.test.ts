@@ -183,7 +183,8 @@ describe('fitNoiseModel weights each point by its averages (METHODS 1.3/3.2)', (
     const high = clean.frequencyHz.findIndex((f) => f >= 3e3);
     psd[low] *= 2.5;
     psd[high] *= 2.5;
-    const m = fitNoiseModel({ frequencyHz: clean.frequencyHz, psd, averages });
+    const withAverages = { frequencyHz: clean.frequencyHz, psd, averages };
+    const m = fitNoiseModel(withAverages);
     expect(m.excludedHz).toEqual([clean.frequencyHz[high]]);
   });
 

@@ -50,6 +50,8 @@ import { createSweepsService } from './modules/sweeps/sweeps.service';
 import { createSimulationsRouter } from './modules/simulations/simulations.router';
 import { createSimulationsService } from './modules/simulations/simulations.service';
 import { openApiRouter } from './openapi/openapi.router';
+import { createStabilityRouter } from './modules/stability/stability.router';
+import { createStabilityService } from './modules/stability/stability.service';
 import { createServices, type Services } from './services';
 import { LocalDiskStorage } from './storage/local-disk-storage';
 import type { Storage } from './storage/storage';
@@ -129,6 +131,7 @@ export function createApp(deps: AppDeps): Express {
   api.use(createLaserEstimatesRouter());
   api.use(createSimulationsRouter(createSimulationsService({ db: deps.db, storage, captures, lasers: services.lasers, logger })));
   api.use(createRfSpectraRouter(createRfSpectraService(deps.db)));
+  api.use(createStabilityRouter(createStabilityService({ db: deps.db, storage })));
   api.use(createMarksRouter({ marks: createMarksService({ db: deps.db }) }));
   api.use(createCommentsRouter({ comments: createCommentsService({ db: deps.db }) }));
   api.use(createVersionRouter());

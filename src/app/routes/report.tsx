@@ -47,7 +47,7 @@ export function ReportRoute() {
   const analysis = useAnalysis(analysisId);
   const spectrumHref = paths.benches.spectrum.getHref(benchId, analysisId);
   return (
-    <div className="min-h-screen bg-paper-deep pb-12">
+    <div className="report-backdrop min-h-screen bg-paper-deep pb-12">
       <div className="report-screen-only mx-auto flex w-[210mm] items-center justify-between gap-4 py-4">
         <Link to={spectrumHref} className="text-sm text-accent hover:underline">
           ← Back to the spectrum

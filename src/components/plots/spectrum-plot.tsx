@@ -137,12 +137,42 @@ export function SpectrumPlot({
   const width = useElementWidth(wrapRef);
   const height = heightProp ?? Math.round(clamp(width * 0.52, 340, 520));
   const iw = Math.max(10, width - MARGIN.left - MARGIN.right);
-  const ih = Math.max(10, height - MARGIN.top - MARGIN.bottom);
+  const info = VIEW_INFO[view];
+
+  // the legend, wrapped onto as many rows as the width needs; the plot starts below it
+  const tInvLegend = observationTimeS && observationTimeS > 0;
+  const legend: { key: string; label: string; swatch: 'line' | 'dash' | 'fill' | 'band' | 'model' | 'spur' | 'mark' }[] = [
+    { key: 'trace', label: `${info.symbol} measured`, swatch: 'line' },
+  ];
+  if (showBeta) {
+    legend.push({ key: 'beta', label: 'β-separation line', swatch: 'dash' });
+    legend.push({ key: 'above', label: tInvLegend ? 'above β, from 1/T₀' : 'above β', swatch: 'fill' });
+  }
+  if (band) legend.push({ key: 'band', label: 'white-floor band', swatch: 'band' });
+  if (model) legend.push({ key: 'model', label: 'noise model', swatch: 'model' });
+  if (spurs.length) legend.push({ key: 'spur', label: 'spur', swatch: 'spur' });
+  if (marks.length) legend.push({ key: 'mark', label: 'mark', swatch: 'mark' });
+  const legendItems = (() => {
+    const room = Math.max(120, width - MARGIN.left - MARGIN.right);
+    let cx = 0;
+    let row = 0;
+    return legend.map((item) => {
+      const w = 30 + item.label.length * 6.3;
+      if (cx > 0 && cx + w > room) {
+        row += 1;
+        cx = 0;
+      }
+      const at = cx;
+      cx += w + 18;
+      return { ...item, at, row };
+    });
+  })();
+  const top = MARGIN.top + (legendItems.length ? legendItems[legendItems.length - 1].row : 0) * 16;
+  const ih = Math.max(10, height - top - MARGIN.bottom);
   const uid = useId().replace(/[^a-zA-Z0-9]/g, '');
   const clipId = `plot-clip-${uid}`;
   const helpId = `plot-help-${uid}`;
   const summaryId = `plot-summary-${uid}`;
-  const info = VIEW_INFO[view];
 
   const [zoom, setZoom] = useState<Zoom>({ x: null, y: null, view });
   const [hover, setHover] = useState<number | null>(null);
@@ -274,8 +304,8 @@ export function SpectrumPlot({
     const svg = wrapRef.current?.querySelector('svg');
     const rect = svg?.getBoundingClientRect();
     if (!rect) return { px: 0, py: 0 };
-    return { px: clamp(e.clientX - rect.left - MARGIN.left, 0, iw), py: clamp(e.clientY - rect.top - MARGIN.top, 0, ih) };
-  }, [iw, ih]);
+    return { px: clamp(e.clientX - rect.left - MARGIN.left, 0, iw), py: clamp(e.clientY - rect.top - top, 0, ih) };
+  }, [iw, ih, top]);
 
   const setBand = useCallback(
     (lo: number, hi: number) => {
@@ -392,27 +422,6 @@ export function SpectrumPlot({
   const bandPx = band ? { lo: x(band[0]), hi: x(band[1]) } : null;
   const movable = Boolean(onBandChange && band);
 
-  const legend: { key: string; label: string; swatch: 'line' | 'dash' | 'fill' | 'band' | 'model' | 'spur' | 'mark' }[] = [
-    { key: 'trace', label: `${info.symbol} measured`, swatch: 'line' },
-  ];
-  if (showBeta) {
-    legend.push({ key: 'beta', label: 'β-separation line', swatch: 'dash' });
-    legend.push({ key: 'above', label: tInv ? 'above β, from 1/T₀' : 'above β', swatch: 'fill' });
-  }
-  if (band) legend.push({ key: 'band', label: 'white-floor band', swatch: 'band' });
-  if (model) legend.push({ key: 'model', label: 'noise model', swatch: 'model' });
-  if (spurMarks.length) legend.push({ key: 'spur', label: 'spur', swatch: 'spur' });
-  if (markShapes.length) legend.push({ key: 'mark', label: 'mark', swatch: 'mark' });
-
-  const legendItems = (() => {
-    let cx = 0;
-    return legend.map((item) => {
-      const at = cx;
-      cx += 30 + item.label.length * 6.3 + 18;
-      return { ...item, at };
-    });
-  })();
-
   const zoomRect =
     drag?.kind === 'zoom' && (Math.abs(drag.x1 - drag.x0) > 6 || Math.abs(drag.y1 - drag.y0) > 6)
       ? Math.abs(drag.y1 - drag.y0) > 12 && Math.abs(drag.x1 - drag.x0) > 6
@@ -458,7 +467,7 @@ export function SpectrumPlot({
             {/* legend */}
             <g transform={`translate(${MARGIN.left},${14})`} fontSize={TICK_FONT} fill={T.inkSoft} aria-hidden="true">
               {legendItems.map((item) => (
-                <g key={item.key} transform={`translate(${item.at},0)`}>
+                <g key={item.key} transform={`translate(${item.at},${item.row * 16})`}>
                   {item.swatch === 'line' && <line x1={0} x2={22} y1={0} y2={0} stroke={T.trace} strokeWidth={1.8} />}
                   {item.swatch === 'dash' && <line x1={0} x2={22} y1={0} y2={0} stroke={T.beta} strokeWidth={1.4} strokeDasharray="5 3" />}
                   {item.swatch === 'fill' && <rect x={0} y={-5} width={22} height={10} fill={T.beta} fillOpacity={0.14} stroke={T.beta} strokeOpacity={0.35} strokeWidth={0.6} />}
@@ -473,7 +482,7 @@ export function SpectrumPlot({
               ))}
             </g>
 
-            <g transform={`translate(${MARGIN.left},${MARGIN.top})`}>
+            <g transform={`translate(${MARGIN.left},${top})`}>
               {/* the drawing is described in words beside it (summaryId); only the band's sliders are for assistive technology */}
               <g aria-hidden="true">
                 {/* grid */}
@@ -665,7 +674,7 @@ export function SpectrumPlot({
         <div
           aria-live="polite"
           className="pointer-events-none absolute font-mono text-xs leading-5 text-ink"
-          style={{ right: MARGIN.right + 8, top: MARGIN.top + 8 }}
+          style={{ right: MARGIN.right + 8, top: top + 8 }}
           data-testid="plot-readout"
         >
           {hoverPoint && (

@@ -94,6 +94,17 @@ function Facts({ rows }: { rows: [string, ReactNode][] }) {
 }
 
 const mono = (text: string) => <span className="font-mono tabular-nums">{text}</span>;
+/** S_ν with its subscript, and the white level S_ν,white */
+const SNu = () => (
+  <>
+    S<sub>ν</sub>
+  </>
+);
+const SNuWhite = () => (
+  <>
+    S<sub>ν,white</sub>
+  </>
+);
 
 export function SpectrumReport({ benchName, laser, capture, analysis, series, marks, plotMarks, version, printedAt }: SpectrumReportProps) {
   const r = read(analysis.result!);
@@ -143,13 +154,13 @@ export function SpectrumReport({ benchName, laser, capture, analysis, series, ma
             </tr>
           </thead>
           <tbody className="align-top">
-            <Row name="Intrinsic linewidth" value={hz(r.intrinsic)} from="Δν = π·S_ν,white (Lorentzian FWHM)" />
-            <Row name="White floor S_ν,white" value={sci(r.floor, 'Hz²/Hz')} from={`mean over ${hzBand(r.floorBand)}${requested.floorBandHz ? ' (band given)' : ' (band found by the engine)'}`} />
+            <Row name="Intrinsic linewidth" value={hz(r.intrinsic)} from={<>Δν = π·<SNuWhite /> (Lorentzian FWHM)</>} />
+            <Row name={<>White floor <SNuWhite /></>} value={sci(r.floor, 'Hz²/Hz')} from={`mean over ${hzBand(r.floorBand)}${requested.floorBandHz ? ' (band given)' : ' (band found by the engine)'}`} />
             <Row name="Integrated linewidth (β-separation line)" value={hz(r.beta.linewidthHz)} from={`area above β(f) from 1/T₀, T₀ = ${formatSI(t0, 's').text}; crossing at ${hz(r.beta.crossingHz)}`} />
-            <Row name="Lineshape FWHM" value={hz(r.fwhm)} from={`lineshape computed from the whole measured S_ν over T₀ = ${formatSI(t0, 's').text}`} />
+            <Row name="Lineshape FWHM" value={hz(r.fwhm)} from={<>lineshape computed from the whole measured <SNu /> over T₀ = {formatSI(t0, 's').text}</>} />
             {r.model && (
               <>
-                <Row name="Noise model a₀" value={sci(r.model.whiteHz2PerHz, 'Hz²/Hz')} from="S_ν = a₀ + a₋₁/f + a₋₂/f², white term" />
+                <Row name="Noise model a₀" value={sci(r.model.whiteHz2PerHz, 'Hz²/Hz')} from={<><SNu /> = a₀ + a₋₁/f + a₋₂/f², white term</>} />
                 <Row name="Noise model a₋₁" value={sci(r.model.flickerHz2, 'Hz²')} from="flicker (1/f) term" />
                 <Row name="Noise model a₋₂" value={sci(r.model.randomWalkHz3, 'Hz³')} from="random-walk (1/f²) term" />
                 <Row name="1/f corner" value={hz(r.model.cornerHz)} from="where a₋₁/f meets a₀" />
@@ -176,11 +187,11 @@ export function SpectrumReport({ benchName, laser, capture, analysis, series, ma
             model={r.model && r.model.whiteHz2PerHz !== null && r.model.flickerHz2 !== null && r.model.randomWalkHz3 !== null ? { whiteHz2PerHz: r.model.whiteHz2PerHz, flickerHz2: r.model.flickerHz2, randomWalkHz3: r.model.randomWalkHz3, bandHz: r.modelBand ?? [series.frequencyHz[0] ?? 1, series.frequencyHz[series.frequencyHz.length - 1] ?? 10] } : null}
             spurs={r.spurs}
             marks={plotMarks}
-            label={`${capture.fileName}: frequency-noise PSD S_ν (Hz²/Hz)`}
+            label={`${capture.fileName}: frequency-noise PSD Sν (Hz²/Hz)`}
             height={330}
           />
           <figcaption className="mt-1 text-xs text-ink-faint">
-            One-sided S_ν(f) in Hz²/Hz against offset frequency, Welch estimate ({settingsLine}). Shaded: the white-floor band; dashed: the
+            One-sided <SNu />(f) in Hz²/Hz against offset frequency, Welch estimate ({settingsLine}). Shaded: the white-floor band; dashed: the
             β-separation line β(f) = 8 ln2 · f/π²; numbered lines and bands: the marks listed below.
           </figcaption>
         </figure>
@@ -251,7 +262,7 @@ export function SpectrumReport({ benchName, laser, capture, analysis, series, ma
   );
 }
 
-function Row({ name, value, from }: { name: string; value: string; from: string }) {
+function Row({ name, value, from }: { name: ReactNode; value: string; from: ReactNode }) {
   return (
     <tr className="border-b border-rule/60">
       <td className="py-1 pr-3 text-ink-soft">{name}</td>

@@ -200,6 +200,21 @@ describe('analyzeCapture on a fibre-laser-like beat note with a relaxation-oscil
   });
 });
 
+describe('analyzeCapture on a white-FM beat note (h0 = 100 Hz²/Hz, IF 48 kHz, fs = 192 kHz, 2^17 samples)', () => {
+  it('searches the floor up to the trusted top B/2 (below fs/10 here), not B/10: the band reaches past 10 kHz; π·h0 within 5 %', async () => {
+    const fs = 192000;
+    const n = 1 << 17;
+    const [v] = synthesize({ sampleRateHz: fs, output: 'beat', whiteHz2PerHz: 100, intermediateFrequencyHz: 48000, seed: 3 }, n).channels;
+    const bytes = encodeNpy('<f8', [n], encodeFrames(Array.from(v, (x) => [x]), 'f8', true));
+    const { report, frequencyStage } = await analyzeCapture({ chunks: [bytes] }, { sampleRateHz: fs, kind: 'beat' });
+    const trustedTop = frequencyStage.bandwidthHz! / 2; // METHODS 2.2
+    expect(report.whiteFloor.bandHz[1]).toBeGreaterThan(10e3);
+    expect(report.whiteFloor.bandHz[1]).toBeLessThanOrEqual(Math.min(trustedTop, fs / 10));
+    expect(Math.abs(report.intrinsicLinewidthHz / (Math.PI * 100) - 1)).toBeLessThan(0.05);
+    expect(report.warnings).toEqual([]);
+  });
+});
+
 describe('analyzeCapture rejects', () => {
   const small = iqNpy(PHI.subarray(0, 5000));
   const run = (bytes: Uint8Array, o: AnalyzeOptions) => analyzeCapture({ chunks: [bytes], totalBytes: bytes.length }, o);

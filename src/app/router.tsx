@@ -13,6 +13,8 @@ import { benchMembersLoader, BenchMembersRoute } from './routes/bench-members';
 import { benchesLoader, BenchesRoute } from './routes/benches';
 import { captureUploadHandle, captureUploadLoader, CaptureUploadRoute } from './routes/capture-upload';
 import { laserLoader, LaserRoute } from './routes/laser';
+import { laserModelLoader, LaserModelRoute } from './routes/laser-model';
+import { linkBudgetsLoader, LinkBudgetsRoute } from './routes/link-budgets';
 import { NotFoundRoute } from './routes/not-found';
 import { overlayLoader, OverlayRoute } from './routes/overlay';
 import { overlaysLoader, OverlaysRoute } from './routes/overlays';
@@ -23,6 +25,7 @@ import { RootHydrateFallback, RootLayout } from './routes/root-layout';
 import { RootError, RouteError } from './routes/route-error';
 import { SharedError, sharedLoader, SharedRoute } from './routes/shared';
 import { signInLoader, SignInRoute } from './routes/sign-in';
+import { simulationsLoader, SimulationsRoute } from './routes/simulations';
 import { signUpLoader, SignUpRoute } from './routes/sign-up';
 import { spectrumHandle, spectrumLoader, SpectrumRoute } from './routes/spectrum';
 import { sweepLoader, SweepRoute } from './routes/sweep';
@@ -76,6 +79,9 @@ export function createAppRouter(queryClient: QueryClient) {
             },
             { path: paths.benches.laser.path, loader: laserLoader(queryClient), Component: LaserRoute, ErrorBoundary: RouteError },
             { path: paths.benches.sweep.path, loader: sweepLoader(queryClient), Component: SweepRoute, ErrorBoundary: RouteError },
+            { path: paths.benches.laserModel.path, loader: laserModelLoader(queryClient), Component: LaserModelRoute, ErrorBoundary: RouteError },
+            { path: paths.benches.linkBudgets.path, loader: linkBudgetsLoader(queryClient), Component: LinkBudgetsRoute, ErrorBoundary: RouteError },
+            { path: paths.benches.simulations.path, loader: simulationsLoader(queryClient), Component: SimulationsRoute, ErrorBoundary: RouteError },
             { path: paths.benches.overlays.path, loader: overlaysLoader(queryClient), Component: OverlaysRoute, ErrorBoundary: RouteError },
             { path: paths.benches.overlay.path, loader: overlayLoader(queryClient), Component: OverlayRoute, ErrorBoundary: RouteError },
             { path: paths.benches.rfSpectra.path, loader: rfSpectraLoader(queryClient), Component: RfSpectraRoute, ErrorBoundary: RouteError },

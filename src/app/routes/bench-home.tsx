@@ -66,6 +66,8 @@ export function BenchHomeRoute() {
         actions={
           <>
             <ButtonLink to={paths.benches.rfSpectra.getHref(bench.id)}>RF spectra</ButtonLink>
+            <ButtonLink to={paths.benches.linkBudgets.getHref(bench.id)}>Link budgets</ButtonLink>
+            <ButtonLink to={paths.benches.simulations.getHref(bench.id)}>Simulator</ButtonLink>
             <ButtonLink to={paths.benches.members.getHref(bench.id)}>Members</ButtonLink>
           </>
         }

@@ -56,6 +56,7 @@ export function LaserRoute() {
             <ButtonLink to={paths.benches.sweep.getHref(bench.id, laser.id)} data-testid="laser-sweep">
               Linewidth sweep
             </ButtonLink>
+            <ButtonLink to={paths.benches.laserModel.getHref(bench.id, laser.id)}>Laser model</ButtonLink>
             {canWrite && (
               <ButtonLink to={paths.benches.upload.getHref(bench.id, laser.id)} variant="primary">
                 Upload a capture

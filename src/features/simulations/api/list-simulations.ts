@@ -1,0 +1,23 @@
+/** GET /api/benches/:benchId/simulations → the bench's runs, newest first; fetched again every second while one runs. */
+import { queryOptions, useSuspenseQuery } from '@tanstack/react-query';
+import type { SimulationListResponse } from '../../../../server/contracts/simulations';
+import { apiPaths } from '../../../config/paths';
+import { api } from '../../../lib/api-client';
+import { simulationKeys } from './keys';
+
+export function listSimulations(benchId: string, signal?: AbortSignal): Promise<SimulationListResponse> {
+  return api.get<SimulationListResponse>(apiPaths.benches.simulations(benchId), { signal });
+}
+
+const running = (data: SimulationListResponse | undefined) => Boolean(data?.simulations.some((s) => s.status === 'queued' || s.status === 'running'));
+
+export const simulationsQueryOptions = (benchId: string) =>
+  queryOptions({
+    queryKey: simulationKeys.list(benchId),
+    queryFn: ({ signal }) => listSimulations(benchId, signal),
+    refetchInterval: (query) => (running(query.state.data) ? 1000 : false),
+  });
+
+export function useSimulations(benchId: string) {
+  return useSuspenseQuery(simulationsQueryOptions(benchId)).data.simulations;
+}

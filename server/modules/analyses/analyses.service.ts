@@ -15,6 +15,7 @@ import type {
 import { AppError, conflict } from '../../errors';
 import { newId } from '../../lib/ids';
 import type { Storage } from '../../storage/storage';
+import { recordAudit } from '../audit/record-audit';
 import type { BenchAccess } from '../benches/bench-policy';
 import {
   accessFromRow,
@@ -136,7 +137,10 @@ export function createAnalysesService(deps: AnalysesServiceDeps) {
       // the role is checked before the body: a refused member learns nothing about validation
       const settings = parseSettings();
       const id = newId();
-      await insertAnalysis(db, { id, capture_id: captureId, created_by: userId, settings, created_at: new Date() });
+      await db.transaction(async (trx) => {
+        await insertAnalysis(trx, { id, capture_id: captureId, created_by: userId, settings, created_at: new Date() });
+        await recordAudit(trx, { benchId: access.benchId, actorId: userId, action: 'analysis.created', targetType: 'analysis', targetId: id, details: { captureId } });
+      });
       deps.onQueued?.();
       return summaryAfterWrite(id, access.benchId);
     },
@@ -148,6 +152,7 @@ export function createAnalysesService(deps: AnalysesServiceDeps) {
       if (row.status !== 'failed' || !(await requeueFailed(db, analysisId))) {
         throw conflict(`only a failed analysis can be retried; this one is ${row.status}`);
       }
+      await recordAudit(db, { benchId: access.benchId, actorId: userId, action: 'analysis.retried', targetType: 'analysis', targetId: analysisId });
       deps.onQueued?.();
       return summaryAfterWrite(analysisId, access.benchId);
     },

@@ -8,6 +8,7 @@ import type { SignInRequest, SignUpRequest, User } from '../../contracts/auth';
 import { AppError, conflict } from '../../errors';
 import { isDuplicateKeyError } from '../../lib/db-errors';
 import { newId } from '../../lib/ids';
+import { recordAudit } from '../audit/record-audit';
 import { findUserByEmail, insertUser, type UserRow } from '../users/users.repository';
 import { createLucia } from './lucia';
 import { dummyPasswordHash, hashPassword, verifyPassword } from './password';
@@ -65,6 +66,7 @@ export function createAuthService(db: Knex) {
       const ok = await verifyPassword(row?.password_hash ?? (await dummyPasswordHash()), input.password);
       if (!row || !ok) throw new AppError(401, 'invalid_credentials', INVALID_CREDENTIALS_MESSAGE);
       const session = await lucia.createSession(row.id, {});
+      await recordAudit(db, { benchId: null, actorId: row.id, action: 'auth.signed_in', targetType: 'user', targetId: row.id });
       return { user: toUser(row), session };
     },
 

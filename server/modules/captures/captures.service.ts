@@ -24,6 +24,7 @@ import { newId } from '../../lib/ids';
 import type { Storage } from '../../storage/storage';
 import { parseJsonColumn, toAnalysisSummary } from '../analyses/analysis-mapping';
 import { findAnalysisSummary, insertAnalysis, listAnalysesOfCapture } from '../analyses/analyses.repository';
+import { recordAudit } from '../audit/record-audit';
 import type { BenchAccess } from '../benches/bench-policy';
 import type { LasersService } from '../lasers/lasers.service';
 import {
@@ -171,6 +172,14 @@ export function createCapturesService(deps: CapturesServiceDeps) {
           settings,
           created_at: now,
         });
+        await recordAudit(trx, {
+          benchId: access.benchId,
+          actorId: access.userId,
+          action: 'capture.uploaded',
+          targetType: 'capture',
+          targetId: captureId,
+          details: { fileName: row.file_name, sha256: row.sha256, sizeBytes: row.size_bytes, analysisId },
+        });
         // Inside the transaction: a failed move rolls the rows back.
         await storage.move(file.tempKey, finalKey);
         moved = true;
@@ -259,6 +268,14 @@ export function createCapturesService(deps: CapturesServiceDeps) {
       await db.transaction(async (trx) => {
         keys = [row.storage_key, ...(await storageKeysOfCapture(trx, captureId))];
         await deleteCapture(trx, captureId);
+        await recordAudit(trx, {
+          benchId: access.benchId,
+          actorId: userId,
+          action: 'capture.deleted',
+          targetType: 'capture',
+          targetId: captureId,
+          details: { fileName: row.file_name, sha256: row.sha256 },
+        });
       });
       for (const key of keys) {
         await storage.delete(key).catch((e: unknown) => deps.logger?.warn({ err: e, key }, 'removing a stored file failed'));

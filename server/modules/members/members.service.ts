@@ -7,6 +7,7 @@ import type { Knex } from 'knex';
 import type { AddMemberRequest, BenchRole, Member, UpdateMemberRequest } from '../../contracts/benches';
 import { conflict, notFound } from '../../errors';
 import { isDuplicateKeyError } from '../../lib/db-errors';
+import { recordAudit } from '../audit/record-audit';
 import { assertCan, type BenchAccess } from '../benches/bench-policy';
 import { findUserByEmail } from '../users/users.repository';
 import {
@@ -58,7 +59,11 @@ export function createMembersService(db: Knex) {
       const user = await findUserByEmail(db, input.email);
       if (!user) throw notFound(NO_ACCOUNT_MESSAGE);
       try {
-        await insertMember(db, { bench_id: access.benchId, user_id: user.id, role: input.role, joined_at: new Date() });
+        await db.transaction(async (trx) => {
+          await insertMember(trx, { bench_id: access.benchId, user_id: user.id, role: input.role, joined_at: new Date() });
+          const details = { email: user.email, role: input.role };
+          await recordAudit(trx, { benchId: access.benchId, actorId: access.userId, action: 'member.added', targetType: 'member', targetId: user.id, details });
+        });
       } catch (e) {
         if (isDuplicateKeyError(e)) throw conflict(`${user.email} is already a member of this bench`);
         throw e;
@@ -76,6 +81,8 @@ export function createMembersService(db: Knex) {
           throw conflict(LAST_OWNER_DEMOTE_MESSAGE);
         }
         await updateMemberRole(trx, access.benchId, userId, input.role as BenchRole);
+        const details = { email: target.email, from: target.role, to: input.role };
+        await recordAudit(trx, { benchId: access.benchId, actorId: access.userId, action: 'member.role_changed', targetType: 'member', targetId: userId, details });
       });
       return getMember(access.benchId, userId);
     },
@@ -89,6 +96,8 @@ export function createMembersService(db: Knex) {
         if (!target) throw notFound(NOT_A_MEMBER_MESSAGE);
         if (target.role === 'owner' && owners.length <= 1) throw conflict(LAST_OWNER_LEAVE_MESSAGE);
         await deleteMember(trx, access.benchId, userId);
+        const details = { email: target.email, role: target.role, left: userId === access.userId };
+        await recordAudit(trx, { benchId: access.benchId, actorId: access.userId, action: 'member.removed', targetType: 'member', targetId: userId, details });
       });
     },
   };

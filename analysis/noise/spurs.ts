@@ -358,19 +358,22 @@ export function removeLines<T extends Spectrum>(spectrum: T, lines: readonly { f
 
 /**
  * The spectrum with each line added back as a block of height P/w over [f − w/2, f + w/2] (w = the
- * line's resolution), so an integral of S_ν read linearly between points holds exactly its power P, and a
- * β-line test compares P/w — the line's density at the analysis resolution — with β(f). Grid points
- * inside a block are dropped (the block's edges carry the background there). Returns a plain Spectrum.
+ * line's resolution, narrower where the grid ends closer), so an integral of S_ν read linearly between
+ * points holds exactly its power P, and a β-line test compares P/w — the line's density at the analysis
+ * resolution — with β(f). Grid points inside a block are dropped (the block's edges carry the background
+ * there). Returns a plain Spectrum.
  */
 export function addLineBlocks(spectrum: Spectrum, lines: readonly { frequencyHz: number; powerHz2: number; resolutionHz: number }[]): Spectrum {
   checkSpectrum(spectrum, 'addLineBlocks');
   const f = Array.from(spectrum.frequencyHz);
   const s = Array.from(spectrum.psd);
   for (const line of [...lines].sort((p, q) => p.frequencyHz - q.frequencyHz)) {
-    const w = line.resolutionHz;
-    if (!(line.powerHz2 > 0) || !(w > 0) || !(line.frequencyHz - w / 2 > f[0]) || !(line.frequencyHz + w / 2 < f[f.length - 1])) continue;
-    const lo = line.frequencyHz - w / 2;
-    const hi = line.frequencyHz + w / 2;
+    // the block stays inside the grid: narrower near an end, still holding P
+    const half = Math.min(line.resolutionHz / 2, 0.999 * (line.frequencyHz - f[0]), 0.999 * (f[f.length - 1] - line.frequencyHz));
+    if (!(line.powerHz2 > 0) || !(half > 0)) continue;
+    const w = 2 * half;
+    const lo = line.frequencyHz - half;
+    const hi = line.frequencyHz + half;
     const eps = 1e-6 * w;
     const level = (x: number) => {
       let j = 1;

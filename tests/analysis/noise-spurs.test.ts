@@ -217,6 +217,13 @@ describe('removeLines and addLineBlocks count a line once, with its measured pow
     expect(blocked.psd[k] - modelAt(299.9)).toBeCloseTo(5e6, -2);
   });
 
+  it('addLineBlocks keeps P for a line half a bin from the top of the grid (the block narrows)', () => {
+    const base = linearSpectrum(1, 1, 1024, modelAt);
+    const blocked = addLineBlocks(base, [{ frequencyHz: 1023.8, powerHz2: 5e6, resolutionHz: 2 }]);
+    expect(rel(trapezoid(blocked) - trapezoid(base), 5e6)).toBeLessThan(2e-6);
+    expect(blocked.frequencyHz[blocked.frequencyHz.length - 1]).toBe(1024);
+  });
+
   it('remove then add: ∫S df of a Welch line spectrum keeps the background plus the line power Σ(S − M)·r', () => {
     const s = welchWithLines([{ hz: 300.4, db: 30 }], 13);
     const [line] = findSpurs(s, model);

@@ -34,9 +34,10 @@
  *  5. Among white-dominated windows the lowest wins (white noise is the floor under bumps, spurs and the
  *     f² detection rise) — but only where it is lower beyond noise: the reference starts at the
  *     best-determined white-dominated window (smallest s.e. of its level) and moves to another only
- *     while that one lies lower by more than 3 combined standard errors (a window of few averages
- *     cannot win by a downward fluctuation; 3 rather than 2 because ~100 overlapping windows are
- *     compared). The windows agreeing with the reference (within 0.3 % + 2 combined standard errors)
+ *     while that one lies lower by more than 5 combined standard errors (a window of few averages
+ *     cannot win by a downward fluctuation: ~100 overlapping windows are compared, and a stretch of a
+ *     single record can read 3.5 s.e. low; a floor under a bump or a detection rise stands much lower
+ *     than that). The windows agreeing with the reference (within 0.3 % + 2 combined standard errors)
  *     are "near"; the reference grown over the contiguous near windows around it is the band. If no
  *     window qualifies, the flattest window is used and a warning says so.
  *  6. With a fitted noise model (`model`, analysis/noise/model-fit.ts) the model's coloured terms
@@ -496,7 +497,7 @@ export function whiteFloor(spectrum: Spectrum, options: WhiteFloorOptions = {}):
     return finish(f, s, k, idx, 'auto', o.model, warnings, notes);
   }
   // 5: the reference starts at the best-determined flat window and moves to a flat window only while
-  // that one is lower beyond 3 combined standard errors; near = agreeing with the reference within
+  // that one is lower beyond 5 combined standard errors; near = agreeing with the reference within
   // 0.3 % + 2 combined standard errors; the band is the reference grown over the contiguous near windows
   let ref = flat[0];
   for (const w of flat) if (w.levelRelErr < ref.levelRelErr) ref = w;

@@ -11,6 +11,8 @@ import { createApp } from './app';
 import { createDb } from './db/knex';
 import { createAnalysisJobs } from './jobs/analysis-jobs';
 import { createLogger } from './lib/logger';
+import { createSmtpMailer, publicBaseUrl } from './mail/mailer';
+import { createNotificationsService } from './mail/notifications/notifications.service';
 import { createServices } from './services';
 import { LocalDiskStorage } from './storage/local-disk-storage';
 
@@ -38,8 +40,11 @@ if (!existsSync(path.join(clientDir, 'index.html'))) {
 const services = createServices(db);
 const storage = new LocalDiskStorage(env.storageDir);
 // analyses run in worker threads fed from the database queue (PHASELOOM_WORKERS=0: none in this process)
-const jobs = createAnalysisJobs({ db, storage, workers: env.PHASELOOM_WORKERS, logger });
-const app = createApp({ db, env, logger, services, clientDir, storage, onAnalysesQueued: jobs.poke });
+const mailer = createSmtpMailer(env);
+const notices = createNotificationsService({ db, mailer, baseUrl: publicBaseUrl(env), logger });
+const onFinished = (analysisId: string) => void notices.analysisFinished(analysisId);
+const jobs = createAnalysisJobs({ db, storage, workers: env.PHASELOOM_WORKERS, logger, onFinished });
+const app = createApp({ db, env, logger, services, clientDir, storage, onAnalysesQueued: jobs.poke, mailer });
 
 // Expired sessions are refused by lucia anyway; sweep their rows now and then.
 const SESSION_SWEEP_MS = 6 * 60 * 60 * 1000;

@@ -24,12 +24,14 @@ export function createAnalysisJobs(options: {
   /** PHASELOOM_WORKERS: undefined = cores − 1 (at least 1), 0 = none in this process */
   workers?: number;
   logger?: RunnerLogger;
+  /** told when an analysis finished (done or failed) */
+  onFinished?: (analysisId: string) => void;
 }): AnalysisJobs {
   if (options.workers === 0) {
     return { poke() {}, async start() {}, async stop() {}, runner: null };
   }
   const executor = createWorkerPool({ size: options.workers });
-  const runner = new JobRunner({ db: options.db, storage: options.storage, executor, logger: options.logger });
+  const runner = new JobRunner({ db: options.db, storage: options.storage, executor, logger: options.logger, onFinished: options.onFinished });
   return {
     runner,
     poke: () => runner.poke(),

@@ -47,6 +47,8 @@ export interface JobRunnerOptions {
   /** points of the display series kept in the row */
   displayPoints?: number;
   logger?: RunnerLogger;
+  /** told after an analysis was recorded as done or failed (e-mail notices); must not throw */
+  onFinished?: (analysisId: string) => void;
 }
 
 const silent: RunnerLogger = { info() {}, warn() {}, error() {} };
@@ -69,6 +71,7 @@ export class JobRunner {
   private readonly maxAttempts: number;
   private readonly displayPoints: number;
   private readonly log: RunnerLogger;
+  private readonly onFinished?: (analysisId: string) => void;
 
   private readonly jobs = new Map<string, RunningJob>();
   private stopped = true;
@@ -90,6 +93,7 @@ export class JobRunner {
     this.maxAttempts = options.maxAttempts ?? 3;
     this.displayPoints = options.displayPoints ?? 1000;
     this.log = options.logger ?? silent;
+    this.onFinished = options.onFinished;
   }
 
   /** Jobs this runner is running now. */
@@ -209,9 +213,11 @@ export class JobRunner {
         const kept = await completeJob(this.db, job.analysisId, this.id, outcome);
         if (!kept && outcome.seriesKey) await this.storage.delete(outcome.seriesKey);
         this.log.info({ analysisId: job.analysisId, kept }, 'analysis done');
+        if (kept) this.onFinished?.(job.analysisId);
       } else {
         await failJob(this.db, job.analysisId, this.id, outcome.message);
         this.log.info({ analysisId: job.analysisId, reason: outcome.message }, 'analysis refused its input');
+        this.onFinished?.(job.analysisId);
       }
     } catch (e) {
       progress.finish();
@@ -220,6 +226,7 @@ export class JobRunner {
       const message = `analysis worker crashed: ${e instanceof Error ? e.message : String(e)}`;
       this.log.warn({ err: e, analysisId: job.analysisId }, 'analysis worker crashed');
       await failJob(this.db, job.analysisId, this.id, message);
+      this.onFinished?.(job.analysisId);
     }
   }
 

@@ -25,8 +25,10 @@ if bash scripts/db.sh status | grep -q '^running'; then db_was_running=1; fi
 bash scripts/db.sh up
 
 server_pid=""
+catcher_pid=""
 cleanup() {
   trap - INT TERM EXIT
+  if [ -n "$catcher_pid" ] && kill -0 "$catcher_pid" 2>/dev/null; then kill -TERM "$catcher_pid" 2>/dev/null || true; fi
   if [ -n "$server_pid" ] && kill -0 "$server_pid" 2>/dev/null; then
     kill -TERM "$server_pid" 2>/dev/null || true
     wait "$server_pid" 2>/dev/null || true
@@ -40,6 +42,16 @@ if [ "$NODE_ENV" != "production" ]; then tsx scripts/seed-demo.ts; fi
 
 say "building the client…"
 vite build --logLevel error >/dev/null || die "the client build failed; run 'npx vite build' to see why"
+
+# development: a local SMTP catcher keeps every e-mail for the /outbox page (production sends through PHASELOOM_SMTP_*)
+if [ "$NODE_ENV" != "production" ]; then
+  if port_in_use "${PHASELOOM_SMTP_PORT:-2525}"; then
+    say "port ${PHASELOOM_SMTP_PORT:-2525} is in use; using the mail catcher already there"
+  else
+    tsx scripts/mail-catcher.ts &
+    catcher_pid=$!
+  fi
+fi
 
 node --import tsx server/index.ts &
 server_pid=$!
@@ -59,6 +71,8 @@ cat <<MSG
     owner     mira.kestner@example.org
     analyst   tomas.aalto@example.org
     viewer    ines.vale@example.org
+
+  E-mail (invitations, password resets) is caught locally: http://$HOST:$PORT/outbox
 
   Ctrl-C stops the server and the database this command started.
   Laser safety: measurement setups involve laser radiation; follow your site's laser-safety rules

@@ -12,6 +12,7 @@ export PHASELOOM_DB_DATADIR=".data/mariadb-test"
 export PHASELOOM_DB_NAME="phaseloom_test"
 export PHASELOOM_STORAGE_DIR=".data/storage-test"
 export PHASELOOM_SMTP_PORT="${PHASELOOM_TEST_SMTP_PORT:-2526}"
+export PHASELOOM_OUTBOX_DIR=".data/outbox-test"
 export LOG_LEVEL="${LOG_LEVEL:-silent}"
 
 ensure_node_modules
@@ -19,14 +20,21 @@ ensure_debian_command chromium chromium
 
 db_was_running=0
 if bash scripts/db.sh status | grep -q '^running'; then db_was_running=1; fi
+catcher_pid=""
 cleanup() {
   trap - INT TERM EXIT
+  if [ -n "$catcher_pid" ] && kill -0 "$catcher_pid" 2>/dev/null; then kill -TERM "$catcher_pid" 2>/dev/null || true; fi
   if [ "$db_was_running" = "0" ]; then bash scripts/db.sh stop || true; fi
 }
 trap cleanup INT TERM EXIT
 bash scripts/db.sh up
 bash scripts/db.sh reset-database
-rm -rf "$PHASELOOM_STORAGE_DIR"
+rm -rf "$PHASELOOM_STORAGE_DIR" "$PHASELOOM_OUTBOX_DIR"
+# the local SMTP catcher (tests that read mail also start their own on a free port)
+if ! port_in_use "$PHASELOOM_SMTP_PORT"; then
+  tsx scripts/mail-catcher.ts &
+  catcher_pid=$!
+fi
 
 results_dir="$ROOT/.data/test-results"
 rm -rf "$results_dir"; mkdir -p "$results_dir"

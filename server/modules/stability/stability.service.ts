@@ -5,9 +5,13 @@
  * stored file again (a separate pass: the analysis job and its figures are untouched), then kept in
  * analysis_allan. ν0 comes from the capture's laser (its nominal optical frequency); without one the
  * deviation is of the frequency in Hz, and says so.
+ * Intervals: σ²·edf/χ² as analysis/noise/allan.ts states them, with the smallest of the five power-law edf
+ * of NIST SP 1065 at each τ (the widest interval). The local slope is too noisy at the longest τ to choose
+ * the noise type (a scattered point read as PM would take the white-PM edf, ~N, and an interval far too
+ * narrow), so the interval does not rest on it; the slope class is still reported for marking.
  */
 import type { Knex } from 'knex';
-import { allanDeviation } from '../../../analysis/noise/allan';
+import { allanDeviation, chiSquareQuantile, overlappingAllanEdf, type AllanNoiseType } from '../../../analysis/noise/allan';
 import type { AllanResponse } from '../../contracts/stability';
 import { conflict } from '../../errors';
 import type { Storage } from '../../storage/storage';
@@ -23,6 +27,16 @@ export interface StabilityServiceDeps {
 }
 
 const CHUNK_BYTES = 4 << 20;
+const NOISE_TYPES: readonly AllanNoiseType[] = ['white-pm', 'flicker-pm', 'white-fm', 'flicker-fm', 'random-walk-fm'];
+
+/** the widest interval over the five power laws: the smallest edf (at least 1) */
+function conservativeInterval(variance: number, phasePoints: number, m: number, confidence: number) {
+  const edf = Math.max(1, Math.min(...NOISE_TYPES.map((t) => overlappingAllanEdf(t, phasePoints, m))));
+  // σ²·edf/χ²: the upper χ² quantile gives the lower bound
+  const lower = Math.sqrt((variance * edf) / chiSquareQuantile((1 + confidence) / 2, edf));
+  const upper = Math.sqrt((variance * edf) / chiSquareQuantile((1 - confidence) / 2, edf));
+  return { edf, lower, upper };
+}
 
 export function createStabilityService(deps: StabilityServiceDeps) {
   const { db, storage } = deps;
@@ -71,9 +85,7 @@ export function createStabilityService(deps: StabilityServiceDeps) {
       points: r.points.map((p) => ({
         tauS: p.tauS,
         deviation: p.deviation,
-        lower: p.interval[0],
-        upper: p.interval[1],
-        edf: p.edf,
+        ...conservativeInterval(p.variance, r.phasePoints, p.averagingFactor, r.confidence),
         slopeClass: p.slopeClass,
       })),
       regions: r.regions,

@@ -27,6 +27,8 @@ export const paths = {
   auth: {
     signIn: { path: '/sign-in', getHref: (redirectTo?: string | null) => withRedirect('/sign-in', redirectTo) },
     signUp: { path: '/sign-up', getHref: (redirectTo?: string | null) => withRedirect('/sign-up', redirectTo) },
+    forgotPassword: { path: '/forgot-password', getHref: () => '/forgot-password' },
+    resetPassword: { path: '/reset-password/:token', getHref: (token: string) => `/reset-password/${seg(token)}` },
   },
   benches: {
     list: { path: '/benches', getHref: () => '/benches' },
@@ -52,6 +54,11 @@ export const paths = {
     rfSpectrum: {
       path: '/benches/:benchId/rf-spectra/:rfSpectrumId',
       getHref: (benchId: string, id: string) => `/benches/${seg(benchId)}/rf-spectra/${seg(id)}`,
+    },
+    /** the printable report of an overlay: figures side by side, plot, marks, provenance */
+    overlayReport: {
+      path: '/benches/:benchId/overlays/:overlayId/report',
+      getHref: (benchId: string, overlayId: string) => `/benches/${seg(benchId)}/overlays/${seg(overlayId)}/report`,
     },
     /** the printable report of one analysis: figures, plot, marks, provenance */
     report: {
@@ -89,6 +96,12 @@ export const paths = {
     },
   },
   account: { path: '/account', getHref: () => '/account' },
+  /** the link in an invitation e-mail */
+  invitation: { path: '/invitation/:token', getHref: (token: string) => `/invitation/${seg(token)}` },
+  /** e-mail caught by the local mail catcher (development and test) */
+  outbox: { path: '/outbox', getHref: () => '/outbox' },
+  /** a bench's audit trail (owners) */
+  audit: { path: '/benches/:benchId/audit', getHref: (benchId: string) => `/benches/${seg(benchId)}/audit` },
   /** a share link's public page (no sign-in) */
   shared: { path: '/shared/:token', getHref: (token: string) => `/shared/${seg(token)}` },
 } as const;
@@ -117,6 +130,21 @@ export const apiPaths = {
     signOut: () => `${api}/auth/sign-out`,
   },
   me: () => `${api}/me`,
+  outbox: () => `${api}/outbox`,
+  notificationSettings: () => `${api}/notification-settings`,
+  invitations: {
+    /** GET (owner) the bench's invitations; POST to invite */
+    ofBench: (benchId: string) => `${api}/benches/${seg(benchId)}/invitations`,
+    preview: () => `${api}/invitations/preview`,
+    accept: () => `${api}/invitations/accept`,
+  },
+  passwordResets: {
+    request: () => `${api}/password-resets`,
+    check: () => `${api}/password-resets/check`,
+    confirm: () => `${api}/password-resets/confirm`,
+  },
+  /** GET with ?action=&actorId=&from=&to=&limit=&before= */
+  audit: (benchId: string, query?: object) => `${api}/benches/${seg(benchId)}/audit${queryString(query)}`,
   /** personal API tokens: GET lists, POST makes one; DELETE …/:tokenId revokes */
   apiTokens: {
     list: () => `${api}/me/tokens`,

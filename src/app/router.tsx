@@ -19,6 +19,7 @@ import { NotFoundRoute } from './routes/not-found';
 import { overlayLoader, OverlayRoute } from './routes/overlay';
 import { overlaysLoader, OverlaysRoute } from './routes/overlays';
 import { reportLoader, ReportRoute } from './routes/report';
+import { overlayReportLoader, OverlayReportRoute } from './routes/report-overlay';
 import { rfSpectraLoader, RfSpectraRoute } from './routes/rf-spectra';
 import { rfSpectrumLoader, RfSpectrumRoute } from './routes/rf-spectrum';
 import { RootHydrateFallback, RootLayout } from './routes/root-layout';
@@ -43,6 +44,7 @@ export function createAppRouter(queryClient: QueryClient) {
         { path: paths.auth.signUp.path, loader: signUpLoader(queryClient), Component: SignUpRoute, ErrorBoundary: RootError },
         // the printable report: signed in, outside the site chrome
         { path: paths.benches.report.path, loader: reportLoader(queryClient), Component: ReportRoute, ErrorBoundary: RootError },
+        { path: paths.benches.overlayReport.path, loader: overlayReportLoader(queryClient), Component: OverlayReportRoute, ErrorBoundary: RootError },
         {
           id: 'app',
           loader: appLayoutLoader(queryClient),

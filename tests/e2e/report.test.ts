@@ -22,6 +22,9 @@ const DEMO = {
 };
 const MAINS_TEXT = '50 Hz mains from the current driver';
 const BAND_TEXT = 'servo bump of the offset lock';
+const HERON_FILE = 'heron-fl-1560-beat.wav';
+const HERON_MARK = 'relaxation-oscillation peak';
+const OVERLAY_NAME = 'Wren against Heron, report check';
 
 // ---- PDF text, read without outside tools --------------------------------------------------------
 
@@ -421,6 +424,71 @@ describe('spectrum report in chromium', () => {
     expect(pdfPages).toBeGreaterThanOrEqual(1);
     expect(pdfPages).toBeLessThanOrEqual(3);
   });
+
+  it('an overlay of two spectra prints with both traces’ figures, the marks and each file’s provenance', async () => {
+    const { page } = browser;
+    // a second spectrum: the Heron fibre laser's beat note (the WAV states its own sample rate)
+    const lasers = await inPage<{ lasers: { id: string; name: string }[] }>('GET', `/api/benches/${benchId}/lasers`);
+    const heronId = lasers.body.lasers.find((l) => l.name === 'Heron FL-1560')!.id;
+    const res = await page.request.post(url(`/api/benches/${benchId}/captures`), {
+      headers: { Origin: server.baseUrl },
+      multipart: {
+        file: { name: HERON_FILE, mimeType: 'audio/wav', buffer: readFileSync(path.join(projectRoot, 'samples', HERON_FILE)) },
+        kind: 'beat',
+        laserId: heronId,
+        setup: 'heterodyne',
+        driveCurrentMa: '400',
+      },
+    });
+    expect(res.status(), await res.text()).toBe(201);
+    const heron = (await res.json()) as { capture: { id: string; sha256: string }; analysis: { id: string } };
+    let heronAnalysis: AnalysisJson | undefined;
+    const end = Date.now() + 120_000;
+    while (!heronAnalysis) {
+      const a = await inPage<AnalysisJson>('GET', `/api/analyses/${heron.analysis.id}`);
+      if (a.body.status === 'done' || a.body.status === 'failed') heronAnalysis = a.body;
+      else if (Date.now() > end) throw new Error(`analysis still ${a.body.status}`);
+      else await page.waitForTimeout(300);
+    }
+    expect(heronAnalysis.status).toBe('done');
+    const mark = await inPage('POST', `/api/captures/${heron.capture.id}/marks`, { kind: 'relaxation-oscillation', text: HERON_MARK, bandHz: [7000, 10_000] });
+    expect(mark.status).toBe(201);
+    const created = await inPage<{ overlay: { id: string } }>('POST', `/api/benches/${benchId}/overlays`, {
+      name: OVERLAY_NAME,
+      analysisIds: [analysis.id, heronAnalysis.id],
+    });
+    expect(created.status).toBe(201);
+
+    await page.goto(url(`/benches/${benchId}/overlays/${created.body.overlay.id}/report`));
+    const report = page.getByTestId('overlay-report');
+    await report.waitFor();
+    await report.locator('svg').first().waitFor();
+    await page.evaluate(() => document.fonts.ready);
+    expect(await report.getByTestId('report-mark').count()).toBe(3);
+    await page.emulateMedia({ media: 'print' });
+    await page.screenshot({ path: path.join(screenshotDir, 'report-03-overlay-print-media.png'), fullPage: true });
+    const overlayPdf = await page.pdf({ format: 'A4', printBackground: true, preferCSSPageSize: true });
+    await page.emulateMedia({ media: 'screen' });
+    writeFileSync(path.join(screenshotDir, 'report-overlay.pdf'), overlayPdf);
+    const read = pdfText(overlayPdf);
+    writeFileSync(path.join(screenshotDir, 'report-overlay-pdf-text.txt'), read.text);
+    const text = bare(read.text);
+    const has = (s: string) => expect(text, `the overlay PDF text lacks “${s}”`).toContain(bare(s));
+    has(OVERLAY_NAME);
+    has(FILE_NAME);
+    has(HERON_FILE);
+    has(sha256);
+    has(heron.capture.sha256);
+    has(formatSI(analysis.intrinsicLinewidthHz!, 'Hz').text);
+    has(formatSI(heronAnalysis.intrinsicLinewidthHz!, 'Hz').text);
+    has(formatSI(heronAnalysis.betaLinewidthHz!, 'Hz').text);
+    has(MAINS_TEXT);
+    has(HERON_MARK);
+    has('IEC 60825-1');
+    const pkg = JSON.parse(readFileSync(path.join(projectRoot, 'package.json'), 'utf8')) as { name: string; version: string };
+    has(`${pkg.name} ${pkg.version}`);
+    expect(text).not.toContain(bare('Back to the overlay'));
+  }, 180_000);
 
   it('the page logged no errors', () => {
     expect(consoleErrors).toEqual([]);

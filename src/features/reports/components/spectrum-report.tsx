@@ -10,11 +10,10 @@ import type { Capture } from '../../../../server/contracts/captures';
 import type { Laser } from '../../../../server/contracts/lasers';
 import { MARK_KIND_LABELS, type Mark } from '../../../../server/contracts/marks';
 import type { VersionResponse } from '../../../../server/contracts/reports';
-import { LaserSafetyNote } from '../../../components/layout/laser-safety-note';
 import { SpectrumPlot, type PlotMark } from '../../../components/plots/spectrum-plot';
 import { formatIsoDateTime } from '../../../lib/dates';
-import { formatFixed, formatScientific, formatSI, formatWavelengthNm } from '../../../lib/units';
-import './report-print.css';
+import { formatFixed, formatSI, formatWavelengthNm } from '../../../lib/units';
+import { Facts, hz, hzBand, KIND_NAMES, mono, operatingPointText, ReportSection as Section, ReportSheet, sci, SETUP_NAMES, SNu, SNuWhite, WINDOW_NAMES } from './report-parts';
 
 export interface SpectrumReportProps {
   benchName: string;
@@ -32,18 +31,6 @@ export interface SpectrumReportProps {
 }
 
 const num = (v: unknown): number | null => (typeof v === 'number' && Number.isFinite(v) ? v : null);
-const hz = (v: number | null, significant = 3) => (v === null ? '—' : formatSI(v, 'Hz', { significant }).text);
-const sci = (v: number | null, unit: string) => (v === null ? '—' : formatScientific(v, unit, 3).text);
-const hzBand = (b: readonly [number, number] | null) => (b ? `${hz(b[0])} – ${hz(b[1])}` : '—');
-
-const WINDOW_NAMES: Record<string, string> = { hann: 'Hann', 'blackman-harris': 'Blackman–Harris', 'flat-top': 'flat-top' };
-const KIND_NAMES: Record<string, string> = { phase: 'phase (rad)', iq: 'IQ (I and Q)', beat: 'beat note (real voltage)', frequency: 'instantaneous frequency (Hz)' };
-const SETUP_NAMES: Record<string, string> = {
-  heterodyne: 'heterodyne against a reference laser',
-  'self-heterodyne': 'delayed self-heterodyne',
-  'coherent-receiver': 'coherent (IQ) receiver',
-  other: 'other',
-};
 
 function read(result: AnalysisResult) {
   const s = result.settings as Record<string, unknown>;
@@ -70,42 +57,6 @@ function read(result: AnalysisResult) {
   };
 }
 
-function Section({ title, children, testId }: { title: string; children: ReactNode; testId?: string }) {
-  return (
-    <section className="report-keep mt-7" data-testid={testId}>
-      <h2 className="border-b border-rule pb-1.5 text-[0.8125rem] font-semibold tracking-wide text-ink uppercase">{title}</h2>
-      <div className="pt-2.5">{children}</div>
-    </section>
-  );
-}
-
-/** A two-column list of facts: term, value (numbers in JetBrains Mono). */
-function Facts({ rows }: { rows: [string, ReactNode][] }) {
-  return (
-    <dl className="grid grid-cols-[12rem_minmax(0,1fr)] gap-x-4 gap-y-1 text-[0.8125rem] leading-snug">
-      {rows.map(([term, value]) => (
-        <div key={term} className="contents">
-          <dt className="text-ink-faint">{term}</dt>
-          <dd className="min-w-0 break-words text-ink">{value}</dd>
-        </div>
-      ))}
-    </dl>
-  );
-}
-
-const mono = (text: string) => <span className="font-mono tabular-nums">{text}</span>;
-/** S_ν with its subscript, and the white level S_ν,white */
-const SNu = () => (
-  <>
-    S<sub>ν</sub>
-  </>
-);
-const SNuWhite = () => (
-  <>
-    S<sub>ν,white</sub>
-  </>
-);
-
 export function SpectrumReport({ benchName, laser, capture, analysis, series, marks, plotMarks, version, printedAt }: SpectrumReportProps) {
   const r = read(analysis.result!);
   const t0 = r.beta.observationTimeS;
@@ -123,26 +74,21 @@ export function SpectrumReport({ benchName, laser, capture, analysis, series, ma
         ]
           .filter(Boolean)
           .join(' · ');
-  const operatingPoint = [
-    capture.driveCurrentMa !== null && `drive current ${formatFixed(capture.driveCurrentMa, 'mA', 2, true).text}`,
-    capture.temperatureC !== null && `temperature ${formatFixed(capture.temperatureC, '°C', 2, true).text}`,
-    capture.outputPowerMw !== null && `output power ${formatFixed(capture.outputPowerMw, 'mW', 3, true).text}`,
-  ].filter(Boolean) as string[];
+  const operatingPoint = operatingPointText(capture, (v, unit, d) => formatFixed(v, unit, d, true).text);
   const p = capture.setupParams;
 
   return (
-    <article className="report-sheet mx-auto box-content w-[180mm] bg-white px-[15mm] py-[14mm] text-ink shadow-[0_1px_3px_rgba(0,0,0,0.12)]" data-testid="spectrum-report">
-      <header className="border-b-2 border-ink pb-3">
-        <p className="text-xs font-medium tracking-wide text-ink-faint uppercase">Phaseloom · spectrum report</p>
-        <h1 className="mt-1 text-2xl font-semibold tracking-tight break-words" data-testid="report-title">
-          {capture.fileName}
-        </h1>
-        <p className="mt-1 text-sm text-ink-soft">
+    <ReportSheet
+      kind="spectrum report"
+      testId="spectrum-report"
+      title={capture.fileName}
+      subtitle={
+        <>
           {laser ? `${laser.name}${laser.wavelengthNm !== null ? ` (${formatWavelengthNm(laser.wavelengthNm).text})` : ''} · ` : ''}
           {benchName} · analysed {analysis.finishedAt ? mono(formatIsoDateTime(analysis.finishedAt)) : '—'}
-        </p>
-      </header>
-
+        </>
+      }
+    >
       <Section title="Figures" testId="report-figures">
         <p className="mb-2 text-xs text-ink-faint">{settingsLine}</p>
         <table className="w-full border-collapse text-[0.8125rem]">
@@ -243,7 +189,7 @@ export function SpectrumReport({ benchName, laser, capture, analysis, series, ma
                 ? `${SETUP_NAMES[capture.setup]}${p?.referenceLinewidthHz !== undefined ? `, reference linewidth ${hz(p.referenceLinewidthHz)}` : ''}${p?.delayS !== undefined ? `, delay ${formatSI(p.delayS, 's').text}` : ''}`
                 : 'not stated',
             ],
-            ['operating point', operatingPoint.length ? mono(operatingPoint.join(' · ')) : 'not stated'],
+            ['operating point', mono(operatingPoint)],
             ['laser', laser ? `${laser.name}${laser.wavelengthNm !== null ? ` · ${formatWavelengthNm(laser.wavelengthNm).text}` : ''}` : 'none'],
             ['uploaded', <span key="up">{capture.uploadedByName ?? '—'} · {mono(formatIsoDateTime(capture.createdAt))}</span>],
             ['analysis settings', `${settingsLine}${r.enbwHz !== null ? ` · RBW (ENBW) ${hz(r.enbwHz)}` : ''}${r.detrend ? ` · detrend ${r.detrend}` : ''}`],
@@ -255,10 +201,7 @@ export function SpectrumReport({ benchName, laser, capture, analysis, series, ma
         />
       </Section>
 
-      <footer className="report-keep mt-8 border-t border-rule pt-3" data-testid="report-caution">
-        <LaserSafetyNote />
-      </footer>
-    </article>
+    </ReportSheet>
   );
 }
 

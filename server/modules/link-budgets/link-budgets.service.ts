@@ -36,8 +36,7 @@ export const LINK_BUDGET_NOT_FOUND = 'no such link budget, or it is not on a ben
 
 /** Shown with every verdict, beside the engine's own caution. */
 export const PRACTICE_CAUTION =
-  'Link-budget figures are estimates to be confirmed on the real link; they do not replace the link design and sign-off ' +
-  'of a qualified (licensed) engineer under your organisation’s practice.';
+  'These figures do not replace the link design and sign-off of a qualified (licensed) engineer under your organisation’s practice.';
 
 function fieldError(status: 400 | 404 | 409, path: string, message: string): AppError {
   const code = status === 400 ? 'validation_failed' : status === 404 ? 'not_found' : 'conflict';

@@ -133,7 +133,7 @@ export function LinkBudgetForm({ values, onChange, spectra, fieldErrors, formErr
           error={fieldErrors.linewidthHz}
         />
       ) : (
-        <div className="grid grid-cols-1 gap-5 sm:grid-cols-2">
+        <div className="grid grid-cols-1 gap-5">
           <LaserSourceFields name="transmitter" title="Transmitter" fields={values.transmitter} spectra={spectra} errors={fieldErrors} onChange={(f) => set('transmitter', f)} />
           <LaserSourceFields
             name="localOscillator"
@@ -146,7 +146,7 @@ export function LinkBudgetForm({ values, onChange, spectra, fieldErrors, formErr
         </div>
       )}
 
-      <div className="grid grid-cols-1 gap-4 sm:grid-cols-2">
+      <div className="grid grid-cols-1 gap-4">
         <SelectField
           label="Carrier recovery"
           name="recovery"

@@ -23,6 +23,7 @@ import { MarksPanel } from '../../features/marks/components/marks-panel';
 import { ShareControl } from '../../features/share-links/components/share-control';
 import { analysisQueryOptions, useAnalysis } from '../../features/spectra/api/get-analysis';
 import { SpectrumWorkspace } from '../../features/spectra/components/spectrum-workspace';
+import { AllanSection } from '../../features/stability/components/allan-section';
 import type { RouteHandle } from './app-layout';
 
 export const spectrumHandle: RouteHandle = { laserSafety: true };
@@ -101,6 +102,9 @@ export function SpectrumRoute() {
           marks={plotMarks}
           besidePlot={<MarksPanel captureId={capture.id} canWrite={canWrite} />}
         />
+      </div>
+      <div className="mt-12">
+        <AllanSection analysisId={analysis.id} done={analysis.status === 'done'} />
       </div>
       <div className="mt-12 max-w-[44rem]">
         <CommentThread captureId={capture.id} canWrite={canWrite} />

@@ -22,6 +22,7 @@ const DEMO = {
 };
 const MAINS_TEXT = '50 Hz mains from the current driver';
 const BAND_TEXT = 'servo bump of the offset lock';
+const COMMENT_TEXT = 'The 50 Hz line goes away on the battery supply; keep the mark as a reminder.';
 const HERON_FILE = 'heron-fl-1560-beat.wav';
 const HERON_MARK = 'relaxation-oscillation peak';
 const OVERLAY_NAME = 'Wren against Heron, report check';
@@ -325,7 +326,7 @@ describe('spectrum report in chromium', () => {
     expect(analysis.status).toBe('done');
   }, 180_000);
 
-  it('marks added on the spectrum page show on the plot and in the list beside it', async () => {
+  it('marks added on the spectrum page show on the plot and in the list beside it; a comment joins the thread', async () => {
     const { page } = browser;
     await page.goto(url(`/benches/${benchId}/spectra/${analysis.id}`));
     await page.getByTestId('marks-panel').waitFor();
@@ -349,6 +350,22 @@ describe('spectrum report in chromium', () => {
     await form.getByLabel('To', { exact: true }).fill('14000');
     await form.getByRole('button', { name: 'Add mark' }).click();
     await page.getByTestId('mark-item').filter({ hasText: BAND_TEXT }).waitFor();
+
+    // a third mark, deleted again after the confirmation
+    await page.getByRole('button', { name: 'Add a mark' }).click();
+    await form.getByLabel('Frequency', { exact: true }).fill('100');
+    await form.getByLabel('Text', { exact: true }).fill('second harmonic of the mains?');
+    await form.getByRole('button', { name: 'Add mark' }).click();
+    const third = page.getByTestId('mark-item').filter({ hasText: 'second harmonic' });
+    await third.waitFor();
+    await third.getByRole('button', { name: /^Delete mark/ }).click();
+    await third.getByRole('button', { name: /^Yes, delete mark/ }).click();
+    await third.waitFor({ state: 'detached' });
+
+    // the capture's comment thread
+    await page.getByLabel('Add a comment').fill(COMMENT_TEXT);
+    await page.getByRole('button', { name: 'Post comment' }).click();
+    await page.getByTestId('comment').filter({ hasText: COMMENT_TEXT }).waitFor();
 
     const plot = page.getByTestId('spectrum-plot');
     await expect.poll(() => plot.locator('[data-layer="mark"]').count()).toBe(2);

@@ -80,6 +80,8 @@ export function MarksPanel({ captureId, canWrite }: MarksPanelProps) {
 
 function MarkItem({ n, mark, captureId, onEdit }: { n: number; mark: Mark; captureId: string; onEdit: () => void }) {
   const remove = useDeleteMark(captureId);
+  // a second click confirms: marks are shared evidence, one slip should not remove one
+  const [confirming, setConfirming] = useState(false);
   const color = MARK_COLORS[mark.kind];
   return (
     <li className="flex gap-3 py-3" data-testid="mark-item">
@@ -106,9 +108,20 @@ function MarkItem({ n, mark, captureId, onEdit }: { n: number; mark: Mark; captu
             <Button variant="quiet" size="sm" className="h-6 text-xs" onClick={onEdit}>
               Edit
             </Button>
-            <Button variant="quiet" size="sm" className="h-6 text-xs text-danger" busy={remove.isPending} onClick={() => remove.mutate(mark.id)} aria-label={`Delete mark ${n}`}>
-              Delete
-            </Button>
+            {confirming ? (
+              <>
+                <Button variant="quiet" size="sm" className="h-6 text-xs text-danger" busy={remove.isPending} onClick={() => remove.mutate(mark.id)} aria-label={`Yes, delete mark ${n}`}>
+                  Yes, delete it
+                </Button>
+                <Button variant="quiet" size="sm" className="h-6 text-xs" onClick={() => setConfirming(false)}>
+                  Keep
+                </Button>
+              </>
+            ) : (
+              <Button variant="quiet" size="sm" className="h-6 text-xs text-danger" onClick={() => setConfirming(true)} aria-label={`Delete mark ${n}`}>
+                Delete
+              </Button>
+            )}
           </div>
         )}
         {remove.isError && (

@@ -76,6 +76,7 @@ import {
   SharedResponse,
 } from '../contracts/share-links';
 import { CreateSimulationRequest, SimulationListResponse, SimulationResponse } from '../contracts/simulations';
+import { AllanResponse } from '../contracts/stability';
 import { SweepQuery, SweepResponse } from '../contracts/sweeps';
 import type { RouteSpec } from './route-spec';
 
@@ -131,6 +132,7 @@ export const ROUTES: RouteSpec[] = [
   { route: 'GET /api/analyses/:id', who: 'any member', what: 'status, progress, settings and figures (poll while queued/running)', reply: Analysis },
   { route: 'GET /api/analyses/:id/spectrum', who: 'any member', what: 'a log-binned view of the spectrum', query: SpectrumQuery, reply: SpectrumResponse },
   { route: 'GET /api/analyses/:id/series.csv', who: 'any member', what: 'the full spectrum as CSV', replyType: 'text/csv' },
+  { route: 'GET /api/analyses/:id/allan', who: 'any member', what: 'overlapping Allan deviation of the capture’s frequency, with confidence intervals', reply: AllanResponse, errors: [409] },
   { route: 'POST /api/analyses/:id/retry', who: 'owner, analyst', what: 'queue a failed analysis again', reply: AnalysisResponse, status: 200, errors: [409] },
 
   // ---- marks and comments -------------------------------------------------------------------------

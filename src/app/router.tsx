@@ -7,15 +7,20 @@ import type { QueryClient } from '@tanstack/react-query';
 import { createBrowserRouter, redirect } from 'react-router';
 import { paths } from '../config/paths';
 import { accountLoader, AccountRoute } from './routes/account';
+import { auditLoader, AuditRoute } from './routes/audit';
 import { AppLayout, appLayoutLoader } from './routes/app-layout';
 import { benchHomeHandle, benchHomeLoader, BenchHomeRoute } from './routes/bench-home';
 import { benchMembersLoader, BenchMembersRoute } from './routes/bench-members';
 import { benchesLoader, BenchesRoute } from './routes/benches';
+import { ForgotPasswordRoute } from './routes/forgot-password';
+import { invitationLoader, InvitationRoute } from './routes/invitation';
 import { captureUploadHandle, captureUploadLoader, CaptureUploadRoute } from './routes/capture-upload';
 import { laserLoader, LaserRoute } from './routes/laser';
 import { laserModelLoader, LaserModelRoute } from './routes/laser-model';
 import { linkBudgetsLoader, LinkBudgetsRoute } from './routes/link-budgets';
 import { NotFoundRoute } from './routes/not-found';
+import { OutboxRoute } from './routes/outbox';
+import { ResetPasswordRoute } from './routes/reset-password';
 import { overlayLoader, OverlayRoute } from './routes/overlay';
 import { overlaysLoader, OverlaysRoute } from './routes/overlays';
 import { reportLoader, ReportRoute } from './routes/report';
@@ -42,6 +47,10 @@ export function createAppRouter(queryClient: QueryClient) {
         { path: paths.home.path, loader: () => redirect(paths.benches.list.getHref()) },
         { path: paths.auth.signIn.path, loader: signInLoader(queryClient), Component: SignInRoute, ErrorBoundary: RootError },
         { path: paths.auth.signUp.path, loader: signUpLoader(queryClient), Component: SignUpRoute, ErrorBoundary: RootError },
+        { path: paths.auth.forgotPassword.path, Component: ForgotPasswordRoute, ErrorBoundary: RootError },
+        { path: paths.auth.resetPassword.path, Component: ResetPasswordRoute, ErrorBoundary: RootError },
+        { path: paths.invitation.path, loader: invitationLoader(queryClient), Component: InvitationRoute, ErrorBoundary: RootError },
+        { path: paths.outbox.path, Component: OutboxRoute, ErrorBoundary: RootError },
         // the printable report: signed in, outside the site chrome
         { path: paths.benches.report.path, loader: reportLoader(queryClient), Component: ReportRoute, ErrorBoundary: RootError },
         { path: paths.benches.overlayReport.path, loader: overlayReportLoader(queryClient), Component: OverlayReportRoute, ErrorBoundary: RootError },
@@ -89,6 +98,7 @@ export function createAppRouter(queryClient: QueryClient) {
             { path: paths.benches.rfSpectra.path, loader: rfSpectraLoader(queryClient), Component: RfSpectraRoute, ErrorBoundary: RouteError },
             { path: paths.benches.rfSpectrum.path, loader: rfSpectrumLoader(queryClient), Component: RfSpectrumRoute, ErrorBoundary: RouteError },
             { path: paths.account.path, loader: accountLoader(queryClient), Component: AccountRoute, ErrorBoundary: RouteError },
+            { path: paths.audit.path, loader: auditLoader(queryClient), Component: AuditRoute, ErrorBoundary: RouteError },
           ],
         },
         { path: paths.shared.path, loader: sharedLoader(queryClient), Component: SharedRoute, ErrorBoundary: SharedError },

@@ -132,6 +132,9 @@ describe('POST /api/benches/:benchId/simulations → a synthetic capture through
     const capture = list.body.captures[0];
     expect(capture).toMatchObject({ kind: 'iq', format: 'npy', sampleRateHz: 10e9, channels: 2, tags: ['synthetic'], driveCurrentMa: 10 });
     expect(capture.sizeBytes).toBe(128 + 65536 * 8); // a 128-byte .npy header and float32 (N, 2)
+    // newest first: the second run, named by default after its current
+    expect(capture.fileName).toMatch(/^rate-equation-laser-at-10-ma-seed-3-[a-z2-7]{6}\.npy$/);
+    expect(list.body.captures[1].fileName).toMatch(/^default-laser-seed-2-[a-z2-7]{6}\.npy$/);
     expect(capture.latestAnalysis.status).toBe('done');
     const sims = await viewer.agent.get(`/api/benches/${benchId}/simulations`);
     expect(sims.body.simulations.map((s: { captureId: string }) => s.captureId)).toContain(capture.id);

@@ -122,6 +122,12 @@ export function predictSimulation(parameters: RateEquationParametersInput): Simu
   };
 }
 
+/** "rate-equation-laser-at-10-ma-seed-1-ckaec5.npy": readable in the captures list, distinct per run. */
+export function syntheticFileName(name: string, seed: number, id: string): string {
+  const slug = name.toLowerCase().normalize('NFKD').replace(/[^a-z0-9]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 80) || 'simulation';
+  return `${slug}-seed-${seed}-${id.slice(0, 6)}.npy`;
+}
+
 export function createSimulationsService(deps: SimulationsServiceDeps) {
   const { db } = deps;
   const runThread = deps.runThread ?? runSimulationThread;
@@ -142,7 +148,7 @@ export function createSimulationsService(deps: SimulationsServiceDeps) {
     beater.unref();
   }
 
-  async function run(id: string, access: BenchAccess, task: SimulationTask, fields: ParsedCaptureUploadFields): Promise<void> {
+  async function run(id: string, access: BenchAccess, task: SimulationTask, fields: ParsedCaptureUploadFields, fileName: string): Promise<void> {
     await updateSimulation(db, id, { status: 'running', stage: 'simulating', heartbeat_at: new Date() });
     let lastWrite = 0;
     let writing: Promise<void> = Promise.resolve();
@@ -156,7 +162,7 @@ export function createSimulationsService(deps: SimulationsServiceDeps) {
     });
     await writing;
     await updateSimulation(db, id, { stage: 'storing', progress: 0.99, heartbeat_at: new Date() });
-    const received = await receiveIntoStorage(deps.storage, Readable.from([Buffer.from(npy.buffer, npy.byteOffset, npy.byteLength)]), `simulation-${id}.npy`);
+    const received = await receiveIntoStorage(deps.storage, Readable.from([Buffer.from(npy.buffer, npy.byteOffset, npy.byteLength)]), fileName);
     const stored = await deps.captures.create(access, received, fields);
     await updateSimulation(db, id, {
       status: 'done',
@@ -168,12 +174,12 @@ export function createSimulationsService(deps: SimulationsServiceDeps) {
     });
   }
 
-  function enqueue(id: string, access: BenchAccess, task: SimulationTask, fields: ParsedCaptureUploadFields): void {
+  function enqueue(id: string, access: BenchAccess, task: SimulationTask, fields: ParsedCaptureUploadFields, fileName: string): void {
     held.add(id);
     startBeating();
     chain = chain.then(async () => {
       try {
-        await run(id, access, task, fields);
+        await run(id, access, task, fields, fileName);
       } catch (e) {
         const message = e instanceof Error ? e.message : String(e);
         if (!(e instanceof AppError)) deps.logger?.error({ err: e, simulationId: id }, 'simulation failed');
@@ -242,10 +248,12 @@ export function createSimulationsService(deps: SimulationsServiceDeps) {
         ...(input.laserId ? { laserId: input.laserId } : {}),
         driveCurrentMa: input.parameters.currentMa ?? 10,
         outputPowerMw: prediction.outputPowerMw,
-        notes: `Synthetic IQ record from the rate-equation simulator (${name}; seed ${input.seed}; ${samples} samples at ${input.sampleRateHz} Hz). Model defaults are textbook-order values from memory.`,
+        notes:
+          `Synthetic IQ record from the rate-equation simulator (${name}; seed ${input.seed}; ${samples} samples at ${input.sampleRateHz / 1e9} GHz; ` +
+          `predicted intrinsic linewidth ${(prediction.predictedLinewidthHz / 1e6).toPrecision(4)} MHz). Model defaults are textbook-order values from memory.`,
         tags: [SYNTHETIC_TAG],
       };
-      enqueue(id, access, task, fields);
+      enqueue(id, access, task, fields, syntheticFileName(name, input.seed, id));
       const row = await findSimulation(db, id);
       if (!row) throw new Error('the simulation vanished right after it was stored');
       return toSimulation(row);

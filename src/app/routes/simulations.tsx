@@ -44,14 +44,17 @@ export function SimulationsRoute() {
         title="Rate-equation simulator"
         lede="A single-mode semiconductor laser with Langevin noise on carriers, photons and phase, integrated in a worker; each run becomes a synthetic IQ capture on this bench, analysed like an upload — for demos, training and checking the analysis."
       />
-      <Section id="runs" className="mt-10" title="Runs" lede="Newest first.">
-        <SimulationList benchId={bench.id} simulations={simulations} />
-      </Section>
-      {canWrite && (
-        <Panel id="new-simulation" title="New simulation" className="mt-12">
-          <SimulationForm benchId={bench.id} lasers={lasers} />
-        </Panel>
-      )}
+      <div className={canWrite ? 'mt-10 grid grid-cols-1 gap-10 lg:grid-cols-[minmax(0,34rem)_minmax(0,1fr)]' : 'mt-10'}>
+        {canWrite && (
+          <Panel id="new-simulation" title="New simulation">
+            <SimulationForm benchId={bench.id} lasers={lasers} />
+          </Panel>
+        )}
+        {/* beside the form, so a run's progress shows where it was started */}
+        <Section id="runs" className="self-start lg:sticky lg:top-6" title="Runs" lede="Newest first; progress while a run integrates, then its synthetic capture.">
+          <SimulationList benchId={bench.id} simulations={simulations} />
+        </Section>
+      </div>
     </>
   );
 }

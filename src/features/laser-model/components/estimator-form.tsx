@@ -64,8 +64,8 @@ export function EstimatorForm({ wavelengthNm, busy, fieldErrors, formError, onVa
         <TextField label="Internal loss α_i" unit="/cm" inputMode="decimal" {...field('internalLossPerCm')} error={fieldErrors.internalLossPerCm} />
         <TextField label="Output facet R₁" inputMode="decimal" {...field('r1')} error={fieldErrors['facetReflectivities.0'] ?? facetError} hint="power reflectivity, in (0, 1)" />
         <TextField label="Back facet R₂" inputMode="decimal" {...field('r2')} error={fieldErrors['facetReflectivities.1']} hint="power reflectivity, in (0, 1)" />
-        <TextField label="Inversion factor n_sp" inputMode="decimal" {...field('nsp')} error={fieldErrors.nsp} aside="typical 1.5–2.5, from memory" />
-        <TextField label="Linewidth enhancement α" inputMode="decimal" {...field('alphaFactor')} error={fieldErrors.alphaFactor} aside="typical 2–7, from memory" />
+        <TextField label="Inversion factor n_sp" inputMode="decimal" {...field('nsp')} error={fieldErrors.nsp} hint="typical 1.5–2.5 (from memory)" />
+        <TextField label="α-factor" inputMode="decimal" {...field('alphaFactor')} error={fieldErrors.alphaFactor} hint="typical 2–7 (from memory)" />
         <TextField
           label="Power out of facet 1"
           unit="mW"

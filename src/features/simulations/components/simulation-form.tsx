@@ -45,6 +45,12 @@ function num(t: string, scale = 1): number | undefined {
   return Number.isNaN(n) ? Number.NaN : n * scale;
 }
 
+/** 1.8e18 rather than 1800000000000000000: large and small defaults in exponent form, as typed in a notebook. */
+function shown(v: number): string {
+  const a = Math.abs(v);
+  return a !== 0 && (a >= 1e6 || a < 1e-3) ? v.toExponential().replace('e+', 'e') : String(v);
+}
+
 export interface SimulationFormProps {
   benchId: string;
   lasers: readonly { id: string; name: string }[];
@@ -52,7 +58,7 @@ export interface SimulationFormProps {
 
 export function SimulationForm({ benchId, lasers }: SimulationFormProps) {
   const [params, setParams] = useState<Record<string, string>>(() => ({
-    ...Object.fromEntries(PARAMETERS.map((p) => [p.key, String(D[p.key])])),
+    ...Object.fromEntries(PARAMETERS.map((p) => [p.key, shown(D[p.key])])),
     r1: String(D.facetReflectivities[0]),
     r2: String(D.facetReflectivities[1]),
   }));

@@ -1,4 +1,4 @@
-/** /account — the signed-in person's name and e-mail, personal API tokens, and signing out. */
+/** /account — the signed-in person's name and e-mail, personal API tokens, e-mail notices, and signing out. */
 import type { QueryClient } from '@tanstack/react-query';
 import { useNavigate } from 'react-router';
 import { PageHeader } from '../../components/layout/page-header';
@@ -9,9 +9,15 @@ import { ApiTokensPanel } from '../../features/api-tokens/components/api-tokens-
 import { meQueryOptions, useSignedInUser } from '../../features/auth/api/get-me';
 import { AccountDetails } from '../../features/auth/components/account-details';
 import { SignOutButton } from '../../features/auth/components/sign-out-button';
+import { notificationSettingsQueryOptions } from '../../features/notifications/api/get-notification-settings';
+import { AnalysisNoticeToggle } from '../../features/notifications/components/analysis-notice-toggle';
 
 export const accountLoader = (queryClient: QueryClient) => async () => {
-  await Promise.all([queryClient.ensureQueryData(meQueryOptions()), queryClient.ensureQueryData(apiTokensQueryOptions())]);
+  await Promise.all([
+    queryClient.ensureQueryData(meQueryOptions()),
+    queryClient.ensureQueryData(apiTokensQueryOptions()),
+    queryClient.ensureQueryData(notificationSettingsQueryOptions()),
+  ]);
   return null;
 };
 
@@ -32,6 +38,9 @@ export function AccountRoute() {
           lede="For scripts that upload and read on your behalf (the README's API section has examples). A token acts as you, with your role on each bench."
         >
           <ApiTokensPanel />
+        </Section>
+        <Section id="notices" title="E-mail notices" lede="Off unless you turn them on.">
+          <AnalysisNoticeToggle />
         </Section>
         <Section id="session" title="Session" lede="Signing out ends the session in this browser.">
           <SignOutButton onSignedOut={() => navigate(paths.auth.signIn.getHref(), { replace: true })} />

@@ -1,6 +1,6 @@
 /** /benches/:benchId/members — who is on the bench, with their roles; owners add and change. */
 import { useQueryClient, type QueryClient } from '@tanstack/react-query';
-import { useNavigate, useParams, type LoaderFunctionArgs } from 'react-router';
+import { Link, useNavigate, useParams, type LoaderFunctionArgs } from 'react-router';
 import { BenchRole } from '../../../server/contracts/benches';
 import { PageHeader } from '../../components/layout/page-header';
 import { Mono } from '../../components/ui/quantity';
@@ -10,6 +10,8 @@ import { paths } from '../../config/paths';
 import { useSignedInUser } from '../../features/auth/api/get-me';
 import { benchQueryOptions, useBench } from '../../features/benches/api/get-bench';
 import { benchKeys } from '../../features/benches/api/keys';
+import { InvitationList } from '../../features/invitations/components/invitation-list';
+import { InviteForm } from '../../features/invitations/components/invite-form';
 import { membersQueryOptions, useMembers } from '../../features/members/api/get-members';
 import { AddMemberForm } from '../../features/members/components/add-member-form';
 import { MemberList } from '../../features/members/components/member-list';
@@ -71,9 +73,21 @@ export function BenchMembersRoute() {
 
       <div className="mt-12 grid grid-cols-[minmax(0,1fr)_20rem] gap-14">
         {isOwner ? (
-          <Panel id="add-member" title="Add a member">
-            <AddMemberForm benchId={bench.id} onChanged={refreshBench} />
-          </Panel>
+          <div className="flex flex-col gap-10">
+            <Panel id="invite" title="Invite by e-mail">
+              <InviteForm benchId={bench.id} />
+              <InvitationList benchId={bench.id} />
+            </Panel>
+            <Panel id="add-member" title="Add a member">
+              <AddMemberForm benchId={bench.id} onChanged={refreshBench} />
+            </Panel>
+            <p className="text-sm text-ink-soft">
+              Who did what on this bench, and when:{' '}
+              <Link to={paths.audit.getHref(bench.id)} className="font-medium text-accent underline-offset-4 hover:underline">
+                audit trail
+              </Link>
+            </p>
+          </div>
         ) : (
           <p className="pt-1 text-sm text-ink-faint">Only owners add members or change roles. Ask one if someone is missing.</p>
         )}

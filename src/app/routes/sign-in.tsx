@@ -23,6 +23,11 @@ export function SignInRoute() {
         {redirectTo ? 'Sign in to open the page you asked for.' : 'Welcome back to the bench.'}
       </p>
       <SignInForm onSignedIn={() => navigate(safeRedirectTarget(redirectTo), { replace: true })} />
+      <p className="mt-4 text-sm">
+        <Link to={paths.auth.forgotPassword.getHref()} className="text-ink-soft underline-offset-4 hover:text-accent hover:underline">
+          Forgot password?
+        </Link>
+      </p>
       <p className="mt-8 border-t border-rule pt-5 text-sm text-ink-soft">
         New here?{' '}
         <Link to={paths.auth.signUp.getHref(redirectTo)} className="font-medium text-accent underline-offset-4 hover:underline">

@@ -50,6 +50,8 @@ import { createSweepsService } from './modules/sweeps/sweeps.service';
 import { createSimulationsRouter } from './modules/simulations/simulations.router';
 import { createSimulationsService } from './modules/simulations/simulations.service';
 import { openApiRouter } from './openapi/openapi.router';
+import { createCorrectionsRouter } from './modules/corrections/corrections.router';
+import { createCorrectionsService } from './modules/corrections/corrections.service';
 import { createStabilityRouter } from './modules/stability/stability.router';
 import { createStabilityService } from './modules/stability/stability.service';
 import { createServices, type Services } from './services';
@@ -132,6 +134,7 @@ export function createApp(deps: AppDeps): Express {
   api.use(createSimulationsRouter(createSimulationsService({ db: deps.db, storage, captures, lasers: services.lasers, logger })));
   api.use(createRfSpectraRouter(createRfSpectraService(deps.db)));
   api.use(createStabilityRouter(createStabilityService({ db: deps.db, storage })));
+  api.use(createCorrectionsRouter(createCorrectionsService({ db: deps.db, storage })));
   api.use(createMarksRouter({ marks: createMarksService({ db: deps.db }) }));
   api.use(createCommentsRouter({ comments: createCommentsService({ db: deps.db }) }));
   api.use(createVersionRouter());

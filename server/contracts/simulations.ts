@@ -124,6 +124,14 @@ export const Simulation = z.object({
   /** the synthetic capture and its first analysis, once stored */
   captureId: Id.nullable(),
   analysisId: Id.nullable(),
+  /** the ordinary analysis of the synthetic capture, as it goes (null before the capture is stored) */
+  analysis: z
+    .object({
+      status: z.enum(['queued', 'running', 'done', 'failed']),
+      progress: z.number(),
+      intrinsicLinewidthHz: z.number().nullable(),
+    })
+    .nullable(),
   error: z.string().nullable(),
   createdBy: Id.nullable(),
   createdAt: Timestamp,

@@ -67,7 +67,8 @@ async function simulateAndAnalyse(a: Agent, body: object) {
     (x) => x.status === 'done' || x.status === 'failed',
     'analysis',
   );
-  return { created: res.body.simulation, sim, analysis };
+  const after = (await a.get(`/api/simulations/${sim.id}`)).body.simulation;
+  return { created: res.body.simulation, sim, analysis, after };
 }
 
 const countRows = async (table: string) => Number((await testDb()(table).count({ n: '*' }))[0].n);
@@ -106,6 +107,8 @@ describe('POST /api/benches/:benchId/simulations → a synthetic capture through
     expect(base.created).toMatchObject({ status: 'queued', benchId, samples: 65536 });
     expect(base.sim).toMatchObject({ status: 'done', progress: 1 });
     expect(base.analysis.status).toBe('done');
+    // the run reports its capture's analysis as it goes, and the figure once done
+    expect(base.after.analysis).toEqual({ status: 'done', progress: 1, intrinsicLinewidthHz: base.analysis.intrinsicLinewidthHz });
 
     // the estimator (Henry, METHODS 6.1) for the same laser: n_sp = R_sp·τ_p, the facet-1 power
     const estimate = await analyst.agent.post('/api/laser-estimates').send(base.sim.prediction.estimatorInput);

@@ -27,6 +27,15 @@ export interface SimulationRow {
   created_at: Date;
 }
 
+/** A run with its synthetic capture's analysis (left join: null columns before it is stored). */
+export interface SimulationRowWithAnalysis extends SimulationRow {
+  a_status: 'queued' | 'running' | 'done' | 'failed' | null;
+  a_progress: number | null;
+  a_intrinsic_linewidth_hz: number | null;
+}
+
+const WITH_ANALYSIS = ['s.*', 'a.status as a_status', 'a.progress as a_progress', 'a.intrinsic_linewidth_hz as a_intrinsic_linewidth_hz'];
+
 export async function insertSimulation(db: Knex, row: Omit<SimulationRow, 'parameters' | 'prediction'> & { parameters: object; prediction: object }): Promise<void> {
   await db('simulations').insert({ ...row, parameters: JSON.stringify(row.parameters), prediction: JSON.stringify(row.prediction) });
 }
@@ -53,25 +62,28 @@ export async function failStaleSimulations(db: Knex, where: { id?: string; bench
   return q.update({ status: 'failed', stage: 'failed', error: 'the run stopped (its server process ended); start it again', finished_at: new Date() });
 }
 
-export async function findSimulationForUser(db: Knex, id: string, userId: string): Promise<(SimulationRow & { role: BenchRole | null }) | undefined> {
+export async function findSimulationForUser(db: Knex, id: string, userId: string): Promise<(SimulationRowWithAnalysis & { role: BenchRole | null }) | undefined> {
   return db('simulations as s')
+    .leftJoin('analyses as a', 'a.id', 's.analysis_id')
     .leftJoin('bench_members as m', function () {
       this.on('m.bench_id', '=', 's.bench_id').andOn('m.user_id', '=', db.raw('?', [userId]));
     })
     .where('s.id', id)
-    .first(['s.*', 'm.role as role']);
+    .first([...WITH_ANALYSIS, 'm.role as role']);
 }
 
-export async function findSimulation(db: Knex, id: string): Promise<SimulationRow | undefined> {
-  return db('simulations').where({ id }).first();
+export async function findSimulation(db: Knex, id: string): Promise<SimulationRowWithAnalysis | undefined> {
+  return db('simulations as s').leftJoin('analyses as a', 'a.id', 's.analysis_id').where('s.id', id).first(WITH_ANALYSIS);
 }
 
-export async function listSimulations(db: Knex, benchId: string, limit = 50): Promise<SimulationRow[]> {
-  return db('simulations')
-    .where({ bench_id: benchId })
+export async function listSimulations(db: Knex, benchId: string, limit = 50): Promise<SimulationRowWithAnalysis[]> {
+  return db('simulations as s')
+    .leftJoin('analyses as a', 'a.id', 's.analysis_id')
+    .where('s.bench_id', benchId)
     .orderBy([
-      { column: 'created_at', order: 'desc' },
-      { column: 'id', order: 'desc' },
+      { column: 's.created_at', order: 'desc' },
+      { column: 's.id', order: 'desc' },
     ])
-    .limit(limit);
+    .limit(limit)
+    .select(WITH_ANALYSIS);
 }

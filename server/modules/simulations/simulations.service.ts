@@ -41,7 +41,7 @@ import {
   insertSimulation,
   listSimulations,
   updateSimulation,
-  type SimulationRow,
+  type SimulationRowWithAnalysis,
 } from './simulations.repository';
 
 export const SIMULATION_NOT_FOUND = 'no such simulation, or it is not on a bench of yours';
@@ -62,7 +62,7 @@ export interface SimulationsServiceDeps {
 
 const iso = (d: Date | string | null) => (d === null ? null : new Date(d).toISOString());
 
-function toSimulation(row: SimulationRow): Simulation {
+function toSimulation(row: SimulationRowWithAnalysis): Simulation {
   return {
     id: row.id,
     benchId: row.bench_id,
@@ -80,6 +80,7 @@ function toSimulation(row: SimulationRow): Simulation {
     prediction: parseJsonColumn<SimulationPrediction>(row.prediction),
     captureId: row.capture_id,
     analysisId: row.analysis_id,
+    analysis: row.a_status ? { status: row.a_status, progress: row.a_progress ?? 0, intrinsicLinewidthHz: row.a_intrinsic_linewidth_hz } : null,
     error: row.error,
     createdBy: row.created_by,
     createdAt: iso(row.created_at)!,

@@ -1,4 +1,4 @@
-/** GET /api/benches/:benchId/simulations → the bench's runs, newest first; fetched again every second while one runs. */
+/** GET /api/benches/:benchId/simulations → the bench's runs, newest first; fetched again every second while a run or its analysis goes on. */
 import { queryOptions, useSuspenseQuery } from '@tanstack/react-query';
 import type { SimulationListResponse } from '../../../../server/contracts/simulations';
 import { apiPaths } from '../../../config/paths';
@@ -9,7 +9,9 @@ export function listSimulations(benchId: string, signal?: AbortSignal): Promise<
   return api.get<SimulationListResponse>(apiPaths.benches.simulations(benchId), { signal });
 }
 
-const running = (data: SimulationListResponse | undefined) => Boolean(data?.simulations.some((s) => s.status === 'queued' || s.status === 'running'));
+const busy = (status: string | undefined) => status === 'queued' || status === 'running';
+/** a run still integrating, or its capture still being analysed */
+const running = (data: SimulationListResponse | undefined) => Boolean(data?.simulations.some((s) => busy(s.status) || busy(s.analysis?.status)));
 
 export const simulationsQueryOptions = (benchId: string) =>
   queryOptions({

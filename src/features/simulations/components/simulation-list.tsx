@@ -7,6 +7,12 @@ import { paths } from '../../../config/paths';
 import { formatIsoDateTime } from '../../../lib/dates';
 import { formatSI } from '../../../lib/units';
 
+/** +2.5 %, −13 % */
+function formatDeviation(r: number): string {
+  const pct = (r * 100).toFixed(Math.abs(r) < 0.1 ? 1 : 0);
+  return `${r < 0 ? '\u2212' : '+'}${pct.replace('-', '')} %`;
+}
+
 const STAGE: Record<string, string> = { queued: 'waiting for a worker', simulating: 'integrating the rate equations', storing: 'storing the capture', done: 'done', failed: 'failed' };
 
 export function SimulationList({ benchId, simulations }: { benchId: string; simulations: readonly Simulation[] }) {
@@ -34,6 +40,21 @@ export function SimulationList({ benchId, simulations }: { benchId: string; simu
             <p className="text-sm text-ink-soft">
               Predicted: threshold <Quantity q={formatSI(s.prediction.thresholdCurrentMa * 1e-3, 'A')} />, output <Quantity q={formatSI(s.prediction.outputPowerMw * 1e-3, 'W')} />, intrinsic
               linewidth R_sp(1 + α²)/(4πP) = <Quantity q={formatSI(s.prediction.predictedLinewidthHz, 'Hz')} /> (n_sp = <Mono>{s.prediction.equivalentNsp.toFixed(2)}</Mono>)
+            </p>
+          )}
+          {s.analysis && (s.analysis.status === 'queued' || s.analysis.status === 'running') && (
+            <div className="flex items-center gap-3" role="status">
+              <progress max={1} value={s.analysis.progress} className="h-2 w-48 accent-accent" aria-label={`analysis of ${s.name}: ${Math.round(s.analysis.progress * 100)} %`} />
+              <span className="text-sm text-ink-soft">
+                analysing the synthetic capture · <Mono>{Math.round(s.analysis.progress * 100)} %</Mono>
+              </span>
+            </div>
+          )}
+          {s.analysis?.status === 'failed' && <p className="text-sm text-danger">The analysis of the synthetic capture failed; open it for the reason.</p>}
+          {s.analysis?.intrinsicLinewidthHz != null && s.prediction && (
+            <p className="text-sm text-ink" data-testid="simulation-analysed">
+              Analysed intrinsic linewidth <Quantity q={formatSI(s.analysis.intrinsicLinewidthHz, 'Hz')} /> —{' '}
+              <Mono>{formatDeviation(s.analysis.intrinsicLinewidthHz / s.prediction.predictedLinewidthHz - 1)}</Mono> from the prediction
             </p>
           )}
           {s.status === 'done' && s.analysisId && (

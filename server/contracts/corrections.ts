@@ -15,7 +15,6 @@
 import { z } from 'zod';
 import { Id, Timestamp } from './common';
 
-
 export const CreateCorrectionRequest = z.discriminatedUnion('type', [
   z
     .object({

@@ -6,9 +6,10 @@
  *  - delay-interferometer: correctDelayInterferometer (analysis/corrections/delay-interferometer.ts,
  *    METHODS 4.3) on S_Δφ = S_ν,apparent/f² — the job read the demodulated Δφ as a phase, so its S_ν is f²·S_Δφ.
  * The figures are read again from the corrected spectrum, log-binned like the job's view (30 points per
- * decade): white floor by the automatic search (analysis/linewidth/white-floor.ts; for an interferometer only
- * below 0.9/τ, METHODS 4.3), intrinsic linewidth π·S_ν,white, β-line linewidth (analysis/linewidth/beta-line.ts)
- * with the analysis's observation time.
+ * decade, never across a masked notch): white floor (analysis/linewidth/white-floor.ts) as the mean over the
+ * analysis's own floor band after a subtraction (the subtraction is linear), by the automatic search below
+ * 0.9/τ after an interferometer (METHODS 4.3); intrinsic linewidth π·S_ν,white; β-line linewidth
+ * (analysis/linewidth/beta-line.ts) with the analysis's observation time.
  */
 import type { Knex } from 'knex';
 import { correctDelayInterferometer } from '../../../analysis/corrections/delay-interferometer';
@@ -47,13 +48,41 @@ async function readAll(storage: Storage, key: string): Promise<Uint8Array> {
 
 const finite = (v: unknown): number | null => (typeof v === 'number' && Number.isFinite(v) ? v : null);
 
-/** The linewidth figures of a corrected spectrum (kept bins only). */
-export function figuresOf(spectrum: Spectrum, observationTimeS: number, maxHz: number | undefined, warnings: string[]): CorrectionFigures & { display: Spectrum } {
-  const binned = logBinSpectrum(spectrum, { pointsPerDecade: POINTS_PER_DECADE });
-  const display: Spectrum = { frequencyHz: binned.frequencyHz, psd: binned.psd };
+/**
+ * Log bins of the kept bins, one run at a time: a bin never straddles a masked range, so no display
+ * point sits inside a notch.
+ */
+export function binRuns(spectrum: Spectrum, gapsHz: readonly [number, number][]): Spectrum {
+  const f = spectrum.frequencyHz;
+  const outF: number[] = [];
+  const outS: number[] = [];
+  let start = 0;
+  for (let i = 1; i <= f.length; i++) {
+    const gapBetween = i < f.length && gapsHz.some(([a, b]) => f[i - 1] < a && b < f[i]);
+    if (i === f.length || gapBetween) {
+      const run = { frequencyHz: f.subarray(start, i), psd: spectrum.psd.subarray(start, i) };
+      const b = logBinSpectrum(run, { pointsPerDecade: POINTS_PER_DECADE });
+      outF.push(...b.frequencyHz);
+      outS.push(...b.psd);
+      start = i;
+    }
+  }
+  return { frequencyHz: Float64Array.from(outF), psd: Float64Array.from(outS) };
+}
+
+export interface FigureOptions {
+  observationTimeS: number;
+  /** top of the band the figures may use, Hz */
+  maxHz?: number;
+  /** the white floor as the mean over this band (no search) */
+  floorBandHz?: [number, number];
+}
+
+/** The linewidth figures of a corrected spectrum (kept bins only), read from its log-binned view. */
+export function figuresOf(display: Spectrum, o: FigureOptions, warnings: string[]): CorrectionFigures {
   let floor = null;
   try {
-    floor = whiteFloor(display, maxHz !== undefined ? { maxHz } : {});
+    floor = whiteFloor(display, o.floorBandHz ? { bandHz: o.floorBandHz } : o.maxHz !== undefined ? { maxHz: o.maxHz } : {});
     warnings.push(...floor.warnings);
   } catch (e) {
     if (!isAnalysisInputError(e)) throw e;
@@ -61,7 +90,7 @@ export function figuresOf(spectrum: Spectrum, observationTimeS: number, maxHz: n
   }
   let beta = null;
   try {
-    beta = betaLine(display, { observationTimeS, ...(maxHz !== undefined ? { maxHz } : {}) });
+    beta = betaLine(display, { observationTimeS: o.observationTimeS, ...(o.maxHz !== undefined ? { maxHz: o.maxHz } : {}) });
     warnings.push(...beta.warnings);
   } catch (e) {
     if (!isAnalysisInputError(e)) throw e;
@@ -71,7 +100,6 @@ export function figuresOf(spectrum: Spectrum, observationTimeS: number, maxHz: n
     whiteFloorHz2PerHz: finite(floor?.valueHz2PerHz),
     intrinsicLinewidthHz: finite(floor?.intrinsicLinewidthHz),
     betaLinewidthHz: finite(beta?.linewidthHz),
-    display,
   };
 }
 
@@ -144,7 +172,11 @@ export function createCorrectionsService(deps: CorrectionsServiceDeps) {
       let first = 0;
       while (first < measured.frequencyHz.length && !(measured.frequencyHz[first] > 0)) first++;
       const beat: Spectrum = { frequencyHz: measured.frequencyHz.subarray(first), psd: measured.psd.subarray(first) };
-      const result = (typeof row.result === 'string' ? JSON.parse(row.result) : row.result) as { betaLine?: { observationTimeS?: number }; input?: { durationS?: number } } | null;
+      const result = (typeof row.result === 'string' ? JSON.parse(row.result) : row.result) as {
+        betaLine?: { observationTimeS?: number };
+        input?: { durationS?: number };
+        whiteFloor?: { bandHz?: [number, number] };
+      } | null;
       const observationTimeS = result?.betaLine?.observationTimeS ?? result?.input?.durationS;
       if (!(typeof observationTimeS === 'number' && observationTimeS > 0)) throw new AnalysisInputError('the analysis states no observation time');
 
@@ -191,7 +223,11 @@ export function createCorrectionsService(deps: CorrectionsServiceDeps) {
       }
       if (corrected.frequencyHz.length < 8) throw new AnalysisInputError(`the correction leaves ${corrected.frequencyHz.length} bins: too few to read figures from`);
       if (maxHz !== undefined && maxHz <= corrected.frequencyHz[0]) maxHz = undefined;
-      const { display, ...figures } = figuresOf(corrected, observationTimeS, maxHz, warnings);
+      const display = binRuns(corrected, body.maskedRangesHz);
+      // a subtraction is linear: the floor is read over the analysis's own floor band; after an
+      // interferometer the apparent spectrum's band means nothing, so the floor is searched for below 0.9/τ
+      const band = input.type === 'reference' ? result?.whiteFloor?.bandHz : undefined;
+      const figures = figuresOf(display, { observationTimeS, maxHz, ...(band ? { floorBandHz: band } : {}) }, warnings);
       const correction: CorrectionRow = {
         id: newId(),
         analysis_id: analysisId,

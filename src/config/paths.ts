@@ -192,9 +192,13 @@ export const apiPaths = {
     retry: (analysisId: string) => `${api}/analyses/${seg(analysisId)}/retry`,
     shareLinks: (analysisId: string) => `${api}/analyses/${seg(analysisId)}/share-links`,
     allan: (analysisId: string) => `${api}/analyses/${seg(analysisId)}/allan`,
+    corrections: (analysisId: string) => `${api}/analyses/${seg(analysisId)}/corrections`,
   },
   rfSpectra: {
     detail: (id: string) => `${api}/rf-spectra/${seg(id)}`,
+  },
+  corrections: {
+    detail: (id: string) => `${api}/corrections/${seg(id)}`,
   },
   overlays: {
     detail: (overlayId: string) => `${api}/overlays/${seg(overlayId)}`,

@@ -145,6 +145,19 @@ describe('POST /api/benches/:benchId/simulations → a synthetic capture through
 });
 
 describe('simulation routes: roles and refused inputs', () => {
+  it('POST: an owner may run one too (202, queued, then done with its capture)', async () => {
+    const res = await owner.agent.post(`/api/benches/${benchId}/simulations`).send({ ...SHORT, durationS: 8192 / 10e9, seed: 9 });
+    expect(res.status).toBe(202);
+    expect(res.body.simulation).toMatchObject({ status: 'queued', progress: 0, captureId: null, createdBy: owner.user.id });
+    const done = await settle(
+      async () => (await owner.agent.get(`/api/simulations/${res.body.simulation.id}`)).body.simulation,
+      (s) => s.status === 'done' || s.status === 'failed',
+      'simulation',
+    );
+    expect(done.status).toBe('done');
+    expect(done.captureId).toMatch(/^[a-z2-7]{24}$/);
+  });
+
   it('POST: a viewer 403, an outsider 404, no session 401 — nothing stored', async () => {
     const before = await countRows('simulations');
     expect((await viewer.agent.post(`/api/benches/${benchId}/simulations`).send(SHORT)).status).toBe(403);

@@ -254,9 +254,10 @@ export function createSimulationsService(deps: SimulationsServiceDeps) {
           `predicted intrinsic linewidth ${(prediction.predictedLinewidthHz / 1e6).toPrecision(4)} MHz). Model defaults are textbook-order values from memory.`,
         tags: [SYNTHETIC_TAG],
       };
-      enqueue(id, access, task, fields, syntheticFileName(name, input.seed, id));
+      // read before the run is queued, so the reply says 'queued' whatever the worker does next
       const row = await findSimulation(db, id);
       if (!row) throw new Error('the simulation vanished right after it was stored');
+      enqueue(id, access, task, fields, syntheticFileName(name, input.seed, id));
       return toSimulation(row);
     },
 

@@ -181,4 +181,17 @@ describe('overlays and share links in chromium', () => {
     await screenshots(p, 'share-link-revoked-410');
     expect(consoleErrors).toEqual([]);
   }, 60_000);
+
+  it('the laser page links to its sweep: points plotted with D3 and, with one capture, the reason there is no 1/P fit', async () => {
+    const { page } = browser;
+    await page.goto(url(`/benches/${benchId}`));
+    await page.getByRole('link', { name: 'Kestrel ECL-1550' }).first().click();
+    await page.getByTestId('laser-sweep').click();
+    await page.waitForURL(/\/sweep$/);
+    await page.getByRole('button', { name: /Output power/ }).click();
+    await page.locator('[data-testid="sweep-plot"] svg circle').first().waitFor();
+    await page.getByText('Output power P (mW)').first().waitFor();
+    expect(await page.getByTestId('sweep-no-fit').first().innerText()).toMatch(/at least 3/);
+    await screenshots(page, 'sweep-kestrel-output-power');
+  }, 60_000);
 });

@@ -9,6 +9,7 @@ import { line as d3line, scaleLinear, scaleLog } from 'd3';
 import { useMemo, useRef, useState } from 'react';
 import { formatFrequencyTick, formatPowerOfTen, linearTicks, logTicks } from '../../../components/plots/log-axis';
 import { plotTheme as T } from '../../../components/plots/plot-theme';
+import { SvgSymbol } from '../../../components/plots/plot-text';
 import { seriesInView, VIEW_INFO, type SpectrumView } from '../../../components/plots/spectrum-math';
 import { useElementWidth } from '../../../components/plots/use-element-width';
 import { formatScientific, formatSI } from '../../../lib/units';
@@ -77,6 +78,8 @@ export function OverlayPlot({ traces, view = 'frequency', marks = [], label, hei
     : linearTicks(yDomain, Math.max(3, Math.floor(ih / 40)), (v) => String(Math.round(v)));
   const perRow = Math.max(1, Math.ceil(traces.length / legendRows));
   const legendWidth = Math.max(120, Math.floor(iw / perRow));
+  // about 6 px a character at 11 px, after the swatch
+  const maxLegendChars = Math.max(12, Math.floor((legendWidth - 36) / 6));
   const valueText = (v: number) => (info.logY ? formatScientific(v, info.unit, 3).text : `${v.toFixed(1)} ${info.unit}`);
 
   return (
@@ -89,7 +92,7 @@ export function OverlayPlot({ traces, view = 'frequency', marks = [], label, hei
               <g key={t.key} transform={`translate(${(i % perRow) * legendWidth},${Math.floor(i / perRow) * 18})`}>
                 <line x1={0} x2={22} y1={0} y2={0} stroke={t.color} strokeWidth={2.2} />
                 <text x={28} dy="0.35em">
-                  {t.label.length > 40 ? `${t.label.slice(0, 39)}…` : t.label}
+                  {t.label.length > maxLegendChars ? `${t.label.slice(0, maxLegendChars - 1)}…` : t.label}
                 </text>
               </g>
             ))}
@@ -166,7 +169,7 @@ export function OverlayPlot({ traces, view = 'frequency', marks = [], label, hei
               Fourier frequency f (Hz)
             </text>
             <text transform={`translate(${-M.left + 16},${ih / 2}) rotate(-90)`} textAnchor="middle" fontSize={12} fill={T.ink}>
-              {`${info.symbol.replace('_', '')} (${info.unit})`}
+              <SvgSymbol text={`${info.symbol} (${info.unit})`} fontSize={12} />
             </text>
             {traces.length === 0 && (
               <text x={iw / 2} y={ih / 2} textAnchor="middle" fontSize={13} fill={T.inkFaint}>

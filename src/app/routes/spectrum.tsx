@@ -14,6 +14,7 @@ import { captureQueryOptions, useCapture } from '../../features/captures/api/get
 import { AnalysisHistory } from '../../features/captures/components/analysis-history';
 import { CaptureFacts } from '../../features/captures/components/capture-facts';
 import { DeleteCaptureControl } from '../../features/captures/components/delete-capture-control';
+import { CorrectionsSection } from '../../features/corrections/components/corrections-section';
 import { lasersQueryOptions, useLasers } from '../../features/lasers/api/get-lasers';
 import { commentsQueryOptions } from '../../features/marks/api/list-comments';
 import { marksQueryOptions, useMarks } from '../../features/marks/api/list-marks';
@@ -102,6 +103,9 @@ export function SpectrumRoute() {
           marks={plotMarks}
           besidePlot={<MarksPanel captureId={capture.id} canWrite={canWrite} />}
         />
+      </div>
+      <div className="mt-12">
+        <CorrectionsSection benchId={bench.id} analysisId={analysis.id} done={analysis.status === 'done'} canWrite={canWrite} />
       </div>
       <div className="mt-12">
         <AllanSection analysisId={analysis.id} done={analysis.status === 'done'} />

@@ -220,6 +220,28 @@ describe('inviting a colleague by e-mail, in chromium', () => {
     await page.goto(invitationLink);
     await page.getByText('This invitation can no longer be used').waitFor();
     expect(await page.getByRole('alert').innerText()).toMatch(/used already/);
+  });
+
+  it('the owner reads the invitation and its acceptance in the audit trail, filtered by action', async () => {
+    const { page } = browser;
+    await page.evaluate(() => fetch('/api/auth/sign-out', { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: '{}' }));
+    await browser.context.clearCookies();
+    await page.goto(url('/sign-in'));
+    await page.getByLabel('E-mail').fill(DEMO.owner.email);
+    await page.getByLabel('Password').fill(DEMO.owner.password);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL(/\/benches$/);
+    await page.goto(url(`/benches/${benchId}/members`));
+    await page.getByRole('link', { name: 'audit trail' }).click();
+    await page.getByRole('heading', { level: 1, name: 'Audit trail' }).waitFor();
+    const table = page.getByRole('table', { name: 'Audit trail' });
+    await table.getByRole('row', { name: /uploaded a capture/ }).first().waitFor();
+    const filters = page.getByRole('form', { name: 'Filter the audit trail' });
+    await filters.getByLabel('Action').selectOption('invitation.accepted');
+    await filters.getByRole('button', { name: 'Apply' }).click();
+    await table.getByRole('row', { name: new RegExp(`${COLLEAGUE.name}.*accepted an invitation.*${COLLEAGUE.email}`) }).waitFor();
+    expect(await table.getByRole('row', { name: /uploaded a capture/ }).count()).toBe(0);
+    await screenshots(page, 'invite-audit');
     expect(consoleErrors).toEqual([]);
   });
 });

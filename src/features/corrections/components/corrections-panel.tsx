@@ -60,7 +60,7 @@ function CorrectionCard({ c, references, canWrite, analysisId }: { c: Correction
             <th scope="col" className="py-1.5 pr-4 font-medium" />
             <th scope="col" className="py-1.5 pr-4 font-medium">White floor</th>
             <th scope="col" className="py-1.5 pr-4 font-medium">Intrinsic linewidth</th>
-            <th scope="col" className="py-1.5 font-medium">β-line linewidth</th>
+            <th scope="col" className="py-1.5 font-medium normal-case">β-line linewidth</th>
           </tr>
         </thead>
         <tbody>

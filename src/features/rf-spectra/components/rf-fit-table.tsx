@@ -165,7 +165,7 @@ export function RfFitTable({ spectrum }: { spectrum: RfSpectrum }) {
             <tr className="border-b border-rule-strong text-left text-xs tracking-wide text-ink-faint uppercase">
               <th scope="col" className="py-2 pr-4 font-medium">From</th>
               <th scope="col" className="py-2 pr-4 font-medium">Laser linewidth</th>
-              <th scope="col" className="py-2 pr-4 font-medium">τ_d·Δν</th>
+              <th scope="col" className="py-2 pr-4 font-medium normal-case">τ_d·Δν</th>
               <th scope="col" className="py-2 font-medium">Assumption</th>
             </tr>
           </thead>

@@ -54,8 +54,8 @@ function AllanBody({ allan }: { allan: AllanResponse }) {
       <table className="w-full border-collapse text-[0.9375rem]" data-testid="allan-table">
         <thead>
           <tr className="border-b border-rule-strong text-left text-xs tracking-wide text-ink-faint uppercase">
-            <th scope="col" className="py-1.5 pr-4 font-medium">τ</th>
-            <th scope="col" className="py-1.5 pr-4 font-medium">{allan.basis === 'fractional' ? 'σ_y(τ)' : 'σ_ν(τ)'}</th>
+            <th scope="col" className="py-1.5 pr-4 font-medium normal-case">τ</th>
+            <th scope="col" className="py-1.5 pr-4 font-medium normal-case">{allan.basis === 'fractional' ? 'σ_y(τ)' : 'σ_ν(τ)'}</th>
             <th scope="col" className="py-1.5 pr-4 font-medium">Interval</th>
             <th scope="col" className="py-1.5 pr-4 font-medium">edf</th>
             <th scope="col" className="py-1.5 font-medium">Slope reads as</th>

@@ -1,7 +1,8 @@
 /**
  * /benches/:benchId/overlays — the bench's saved overlays, and a form to make one from its finished
  * spectra. `?add=<analysisId>` (from a spectrum's "Add to overlay") ticks that spectrum in the form
- * and offers the existing overlays to add it to.
+ * and offers the existing overlays to add it to. Owners and analysts also see every share link of the
+ * bench here (to spectra and overlays) and can revoke them.
  */
 import type { QueryClient } from '@tanstack/react-query';
 import { useSuspenseQuery } from '@tanstack/react-query';
@@ -18,6 +19,7 @@ import { lasersQueryOptions, useLasers } from '../../features/lasers/api/get-las
 import { overlaysQueryOptions, useOverlays } from '../../features/overlays/api/get-overlays';
 import { AddToOverlay } from '../../features/overlays/components/add-to-overlay';
 import { NewOverlayForm, type SpectrumChoice } from '../../features/overlays/components/new-overlay-form';
+import { ShareLinkList } from '../../features/share-links/components/share-link-list';
 
 const ALL_CAPTURES = { page: 1, pageSize: 100 };
 
@@ -96,6 +98,11 @@ export function OverlaysRoute() {
           </div>
         )}
       </div>
+      {canWrite && (
+        <Section id="bench-share-links" className="mt-12" title="Share links on this bench" lede="Read-only links to spectra and overlays; revoke one and it stops working at once.">
+          <ShareLinkList benchId={benchId} />
+        </Section>
+      )}
     </>
   );
 }

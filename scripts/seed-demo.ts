@@ -14,7 +14,10 @@ import type { BenchRole } from '../server/contracts/benches';
 import type { LaserType } from '../server/contracts/lasers';
 import { createDb } from '../server/db/knex';
 import type { BenchAccess } from '../server/modules/benches/bench-policy';
+import { createCapturesService } from '../server/modules/captures/captures.service';
+import { uploadDemoCaptures } from '../server/modules/captures/demo-captures';
 import { createServices, type Services } from '../server/services';
+import { LocalDiskStorage } from '../server/storage/local-disk-storage';
 
 export const DEMO_PASSWORD = 'larchmere-demo-2026';
 export const DEMO_BENCH = {
@@ -66,12 +69,17 @@ export interface DemoCaptureContext {
 }
 
 /**
- * Hook for demo captures: upload the files in samples/ to the demo bench (through the captures
- * service, looked up by file name so that a second run adds nothing) and return how many were added.
- * Nothing to upload until the captures module exists.
+ * Demo captures: upload the files in samples/ to the demo bench through the captures service (looked
+ * up by file name, so a second run adds nothing) and return how many were added. Their analyses are
+ * queued; the server's job runner analyses them as soon as it starts.
  */
-export async function seedDemoCaptures(_ctx: DemoCaptureContext): Promise<number> {
-  return 0;
+export async function seedDemoCaptures(ctx: DemoCaptureContext): Promise<number> {
+  const captures = createCapturesService({
+    db: ctx.db,
+    storage: new LocalDiskStorage(loadEnv().storageDir),
+    lasers: ctx.services.lasers,
+  });
+  return uploadDemoCaptures({ captures, access: ctx.access, laserIds: ctx.laserIds });
 }
 
 export async function seedDemo(db: Knex, services: Services = createServices(db)): Promise<SeedSummary> {

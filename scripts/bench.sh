@@ -6,7 +6,8 @@
 #     diff, scipy.signal.welch with nperseg 2^16); prints both times and the ratio project/scipy
 #     (target <= 1.0);
 #  2. writes 10^8 samples and reports the CLI's peak resident memory (target <= 400 MB);
-#  3. removes the big files.
+#  3. removes the big files, then runs the server benchmark (tests/bench/upload-bench.ts): RSS rise
+#     during a 1 GiB upload, upload-to-result against the CLI, GET spectrum p95 with 50 clients.
 # Where python3 or scipy is missing it says so and reports the project alone.
 # Environment: BENCH_RUNS (timed runs of each side, default 3), BENCH_SKIP_LARGE=1 skips step 2,
 # BENCH_ANALYZE_CMD replaces the analyze command of package.json (to compare a proposed one).
@@ -132,3 +133,13 @@ t1=$(now)
 samples=$(node -p "JSON.parse(require('fs').readFileSync('$OUT/analyze-large.json', 'utf8')).input.samples")
 printf '\n10^8 float32 IQ samples (800 MB file): %s samples analysed in %s s\n' "$samples" "$(elapsed "$t0" "$t1")"
 printf '  peak resident memory of the CLI: %s MB   target <= 400 MB\n' "$(awk -v k="$peak_kb" 'BEGIN { printf "%.0f", k / 1024 }')"
+rm -f "$LARGE"
+
+# 3. the server: upload memory, upload-to-result against the CLI, GET spectrum under load.
+#    Needs the project-local MariaDB (started here when it is not running) and uses its own database.
+if [ "${BENCH_SKIP_SERVER:-0}" = 1 ]; then
+  printf '\nserver benchmark: skipped (BENCH_SKIP_SERVER=1)\n'
+  exit 0
+fi
+bash scripts/db.sh up
+node --import tsx tests/bench/upload-bench.ts

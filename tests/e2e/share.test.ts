@@ -179,6 +179,11 @@ describe('overlays and share links in chromium', () => {
     expect(await note.getAttribute('data-status')).toBe('410');
     await p.getByRole('heading', { level: 1, name: 'This shared link no longer works' }).waitFor();
     await screenshots(p, 'share-link-revoked-410');
+    // the bench's overlays page lists the overlay and the link, now revoked
+    await page.goto(url(`/benches/${benchId}/overlays`));
+    await page.getByRole('link', { name: OVERLAY_NAME }).first().waitFor();
+    await page.getByRole('list', { name: 'Share links' }).locator('li[data-state="revoked"]').first().waitFor();
+    await screenshots(page, 'overlays-page-with-share-links');
     expect(consoleErrors).toEqual([]);
   }, 60_000);
 

@@ -50,7 +50,7 @@ function FitSummary({ title, outcome }: { title: string; outcome: SweepFitOutcom
   return (
     <div className="text-sm" data-testid="sweep-fit">
       <p className="font-medium text-ink">{title}: Δν = a/P + Δν₀</p>
-      <dl className="mt-1 grid grid-cols-[12rem_1fr] gap-y-1">
+      <dl className="mt-1 grid grid-cols-[15rem_1fr] gap-y-1">
         <dt className="text-ink-soft">slope a</dt>
         <dd>
           <Quantity q={formatSI(f.slopeHzW, 'Hz·W', { significant: 4 })} /> <span className="text-ink-faint">± {formatSI(f.slopeUncertaintyHzW, 'Hz·W').text}</span>

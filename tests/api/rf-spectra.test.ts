@@ -183,6 +183,19 @@ describe('POST /api/benches/:benchId/rf-spectra', () => {
     expect(await storedCount(benchId)).toBe(0);
   });
 
+  it('answers 400 for more rows than the 40 001 accepted, and 413 for a file over 4 MiB; nothing stored', async () => {
+    const { owner, base, benchId } = await bench();
+    const rows = ['frequency (MHz),power (dBm)'];
+    for (let i = 0; i < 40_002; i++) rows.push(`${(80 + i * 1e-4).toFixed(4)},-60`);
+    const many = await upload(owner, base, rows.join('\n'));
+    expect(many.status).toBe(400);
+    expect(errorOf(many).message).toMatch(/more than 40001 rows/);
+    const big = await upload(owner, base, '#'.repeat(4 * 1024 * 1024 + 1));
+    expect(big.status).toBe(413);
+    expect(errorOf(big)).toEqual({ code: 'payload_too_large', message: 'the spectrum file is larger than the 4 MiB limit' });
+    expect(await storedCount(benchId)).toBe(0);
+  });
+
   it('links a laser of the bench', async () => {
     const { owner, base, benchId } = await bench();
     const laser = await owner.agent.post(`/api/benches/${benchId}/lasers`).send({ name: 'Wren DFB-1549', type: 'dfb', wavelengthNm: 1549.32 });

@@ -17,8 +17,8 @@ import { currentAuth, requireUser } from '../../middleware/session';
 import { assertCaptureAction } from '../captures/capture-policy';
 import type { RfSpectraService } from './rf-spectra.service';
 
-/** Largest spectrum file accepted: 16 MiB (about 200 000 rows). */
-export const RF_MAX_FILE_BYTES = 16 * 1024 * 1024;
+/** Largest spectrum file accepted: 4 MiB (room for the 40 001 rows of RF_MAX_ROWS with long numbers). */
+export const RF_MAX_FILE_BYTES = 4 * 1024 * 1024;
 
 function receiveSpectrum(): RequestHandler {
   const upload = multer({
@@ -29,7 +29,7 @@ function receiveSpectrum(): RequestHandler {
     upload(req, res, (err?: unknown) => {
       if (!err) return next();
       if (err instanceof multer.MulterError) {
-        if (err.code === 'LIMIT_FILE_SIZE') return next(new AppError(413, 'payload_too_large', 'the spectrum file is larger than the 16 MiB limit'));
+        if (err.code === 'LIMIT_FILE_SIZE') return next(new AppError(413, 'payload_too_large', 'the spectrum file is larger than the 4 MiB limit'));
         return next(new AppError(400, 'validation_failed', 'send one file, in the form field "file"', [{ path: err.field ?? 'file', message: err.message }]));
       }
       next(err);

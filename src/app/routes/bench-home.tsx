@@ -65,6 +65,7 @@ export function BenchHomeRoute() {
         }
         actions={
           <>
+            <ButtonLink to={paths.benches.overlays.getHref(bench.id)}>Overlays</ButtonLink>
             <ButtonLink to={paths.benches.rfSpectra.getHref(bench.id)}>RF spectra</ButtonLink>
             <ButtonLink to={paths.benches.linkBudgets.getHref(bench.id)}>Link budgets</ButtonLink>
             <ButtonLink to={paths.benches.simulations.getHref(bench.id)}>Simulator</ButtonLink>

@@ -6,7 +6,7 @@ import type { QueryClient } from '@tanstack/react-query';
 import { useState, type FormEvent } from 'react';
 import { useNavigate, useParams, type LoaderFunctionArgs } from 'react-router';
 import { PageHeader } from '../../components/layout/page-header';
-import { Button } from '../../components/ui/button';
+import { Button, ButtonLink } from '../../components/ui/button';
 import { ConfirmDialog } from '../../components/ui/confirm-dialog';
 import { TextField } from '../../components/ui/field';
 import { FormAlert } from '../../components/ui/notes';
@@ -78,14 +78,17 @@ export function OverlayRoute() {
         title={overlay.name}
         lede={`${overlay.traces.length} spectra on one plot; colours follow each spectrum's place in the overlay.`}
         actions={
-          canWrite ? (
-            <div className="flex flex-wrap items-start gap-2">
-              <ShareControl benchId={bench.id} target={{ kind: 'overlay', id: overlay.id }} />
-              <Button type="button" variant="danger" onClick={() => setConfirming(true)}>
-                Delete
-              </Button>
-            </div>
-          ) : undefined
+          <div className="flex flex-wrap items-start gap-2">
+            <ButtonLink to={paths.benches.overlayReport.getHref(bench.id, overlay.id)}>Print report</ButtonLink>
+            {canWrite ? (
+              <>
+                <ShareControl benchId={bench.id} target={{ kind: 'overlay', id: overlay.id }} />
+                <Button type="button" variant="danger" onClick={() => setConfirming(true)}>
+                  Delete
+                </Button>
+              </>
+            ) : null}
+          </div>
         }
       />
       <div className="mt-8">

@@ -38,6 +38,7 @@ import {
   CreateCaptureResponse,
 } from '../contracts/captures';
 import { CommentResponse, CommentsResponse, CreateCommentRequest } from '../contracts/comments';
+import { CorrectionListResponse, CorrectionResponse, CreateCorrectionRequest } from '../contracts/corrections';
 import {
   AcceptInvitationRequest,
   AcceptInvitationResponse,
@@ -133,6 +134,10 @@ export const ROUTES: RouteSpec[] = [
   { route: 'GET /api/analyses/:id/spectrum', who: 'any member', what: 'a log-binned view of the spectrum', query: SpectrumQuery, reply: SpectrumResponse },
   { route: 'GET /api/analyses/:id/series.csv', who: 'any member', what: 'the full spectrum as CSV', replyType: 'text/csv' },
   { route: 'GET /api/analyses/:id/allan', who: 'any member', what: 'overlapping Allan deviation of the capture’s frequency, with confidence intervals', reply: AllanResponse, errors: [409] },
+  { route: 'POST /api/analyses/:id/corrections', who: 'owner, analyst', what: 'correct a spectrum (reference laser subtracted, or delay-interferometer transfer divided) and read its figures again', body: CreateCorrectionRequest, reply: CorrectionResponse },
+  { route: 'GET /api/analyses/:id/corrections', who: 'any member', what: 'the corrections made from an analysis', reply: CorrectionListResponse },
+  { route: 'GET /api/corrections/:id', who: 'any member', what: 'one correction with its figures', reply: CorrectionResponse },
+  { route: 'DELETE /api/corrections/:id', who: 'owner, analyst', what: 'delete a correction' },
   { route: 'POST /api/analyses/:id/retry', who: 'owner, analyst', what: 'queue a failed analysis again', reply: AnalysisResponse, status: 200, errors: [409] },
 
   // ---- marks and comments -------------------------------------------------------------------------

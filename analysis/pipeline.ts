@@ -57,6 +57,7 @@ import type {
   DetrendName,
   FrequencyStageSummary,
   LogFrequencySpectrum,
+  Spectrum,
   ProgressFn,
   RawDtype,
   ReaderInfo,
@@ -143,6 +144,9 @@ export interface AnalysisReport {
   /** broad features above the noise model (relaxation-oscillation, servo bumps) */
   bumps: { centerHz: number; widthHz: number; heightDb: number; powerHz2: number }[];
   carrier: { offsetHz: number; driftHzPerS: number; intermediateFrequencyHz?: number };
+  /** the band S_ν is trusted in: from the lowest point to fs/2, or to B/2 for a beat note (METHODS 2.2);
+   *  `spectrum` (with --series) and the server's display series stop at its top */
+  trustedBandHz: [number, number];
   warnings: string[];
   /** how figures were obtained where a documented approximation or exclusion applied (not problems) */
   notes: string[];
@@ -156,6 +160,8 @@ export interface CaptureAnalysis {
   frequencyStage: FrequencyStageSummary;
   /** every Welch bin of the cascade, each from the finest stage that serves it (stage 0 = full rate) */
   spectrum: LogFrequencySpectrum;
+  /** `spectrum` cut at the top of the trusted band (what is shown and exported) */
+  trustedSpectrum: Spectrum;
   /** the same binned to LOG_POINTS_PER_DECADE (averages summed over the merged bins) */
   logSpectrum: LogFrequencySpectrum;
   whiteFloor: WhiteFloorReport;
@@ -500,13 +506,15 @@ export async function analyzeCapture(source: CaptureSource, options: AnalyzeOpti
       driftHzPerS: summary.driftHzPerS,
       ...(summary.intermediateFrequencyHz !== undefined ? { intermediateFrequencyHz: summary.intermediateFrequencyHz } : {}),
     },
+    trustedBandHz: [spectrum.frequencyHz[0], trustedTopHz ?? spectrum.frequencyHz[spectrum.frequencyHz.length - 1]],
     warnings,
     notes,
   };
+  const trustedSpectrum = trustedTopHz === undefined ? spectrum : cutAbove(spectrum, trustedTopHz);
   if (o.series) {
     report.spectrum = {
-      frequencyHz: toArray(spectrum.frequencyHz),
-      frequencyNoiseHz2PerHz: toArray(spectrum.psd),
+      frequencyHz: toArray(trustedSpectrum.frequencyHz),
+      frequencyNoiseHz2PerHz: toArray(trustedSpectrum.psd),
     };
     report.logSpectrum = {
       frequencyHz: toArray(logSpectrum.frequencyHz),
@@ -520,6 +528,7 @@ export async function analyzeCapture(source: CaptureSource, options: AnalyzeOpti
     readerInfo: info,
     frequencyStage: summary,
     spectrum,
+    trustedSpectrum,
     logSpectrum,
     whiteFloor: floor,
     betaLine: beta,
@@ -570,4 +579,11 @@ function concat(parts: Uint8Array[]): Uint8Array {
     p += part.length;
   }
   return out;
+}
+
+/** The points of `s` at or below `topHz` (a view, no copy). */
+function cutAbove(s: Spectrum, topHz: number): Spectrum {
+  let n = s.frequencyHz.length;
+  while (n > 0 && s.frequencyHz[n - 1] > topHz) n -= 1;
+  return n === s.frequencyHz.length ? s : { frequencyHz: s.frequencyHz.subarray(0, n), psd: s.psd.subarray(0, n) };
 }

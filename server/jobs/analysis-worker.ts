@@ -72,8 +72,8 @@ export default async function runAnalysis({ task, port }: WorkerMessage): Promis
       stream.destroy();
     }
     onProgress(1, 'saving');
-    // the stitched spectrum: every Welch bin from about 1/T0 to fs/2 (the CLI's `spectrum`)
-    const { frequencyHz, psd } = analysis.spectrum;
+    // the stitched spectrum: every Welch bin from about 1/T0 to the top of the trusted band (the CLI's `spectrum`)
+    const { frequencyHz, psd } = analysis.trustedSpectrum;
     await storage.put(task.seriesKey, [encodeSeries(frequencyHz, psd)]);
     const display = logBinSpectrum({ frequencyHz, psd }, { points: task.displayPoints });
     const { spectrum: _spectrum, logSpectrum: _logSpectrum, ...result } = analysis.report;

@@ -213,6 +213,21 @@ describe('analyzeCapture on a white-FM beat note (h0 = 100 Hz²/Hz, IF 48 kHz, f
     expect(Math.abs(report.intrinsicLinewidthHz / (Math.PI * 100) - 1)).toBeLessThan(0.05);
     expect(report.warnings).toEqual([]);
   });
+
+  it('reports the trusted band up to B/2 and, with series, shows S_ν only inside it (METHODS 2.2: trust S_ν up to about B/2)', async () => {
+    const fs = 192000;
+    const n = 1 << 17;
+    const [v] = synthesize({ sampleRateHz: fs, output: 'beat', whiteHz2PerHz: 100, intermediateFrequencyHz: 48000, seed: 4 }, n).channels;
+    const bytes = encodeNpy('<f8', [n], encodeFrames(Array.from(v, (x) => [x]), 'f8', true));
+    const { report, frequencyStage, spectrum } = await analyzeCapture({ chunks: [bytes] }, { sampleRateHz: fs, kind: 'beat', series: true });
+    const trustedTop = frequencyStage.bandwidthHz! / 2;
+    expect(report.trustedBandHz[1]).toBe(trustedTop);
+    const shown = report.spectrum!.frequencyHz;
+    expect(shown[shown.length - 1]).toBeLessThanOrEqual(trustedTop);
+    // the bins above B/2 exist in the engine's spectrum but are not shown
+    expect(spectrum.frequencyHz[spectrum.frequencyHz.length - 1]).toBeGreaterThan(trustedTop);
+    expect(shown.length).toBe(spectrum.frequencyHz.filter((f) => f <= trustedTop).length);
+  });
 });
 
 describe('analyzeCapture rejects', () => {

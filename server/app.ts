@@ -95,6 +95,8 @@ export function createApp(deps: AppDeps): Express {
 
   const app = express();
   app.disable('x-powered-by');
+  // API replies are `no-store`; an ETag (a hash of every JSON body) would only cost time
+  app.set('etag', false);
   app.set('trust proxy', env.PHASELOOM_TRUST_PROXY);
 
   app.use(requestLogger(logger));

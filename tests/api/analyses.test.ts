@@ -193,6 +193,15 @@ describe('GET /api/analyses/:id/spectrum', () => {
   it('is 404 for a member of another bench', async () => {
     expect((await outsider.agent.get(`/api/analyses/${analysisId}/spectrum`)).status).toBe(404);
   });
+
+  it('is 404 for a member removed from the bench once the 2 s read grant has lapsed', async () => {
+    const leaving = await signUp(app, 'leaving');
+    await addMember(owner, benchId, leaving, 'viewer');
+    expect((await leaving.agent.get(`/api/analyses/${analysisId}/spectrum`)).status).toBe(200);
+    expect((await owner.agent.delete(`/api/benches/${benchId}/members/${leaving.user.id}`)).status).toBe(204);
+    await new Promise((r) => setTimeout(r, 2100));
+    expect((await leaving.agent.get(`/api/analyses/${analysisId}/spectrum`)).status).toBe(404);
+  });
 });
 
 describe('GET /api/analyses/:id/series.csv', () => {

@@ -77,6 +77,21 @@ export function createAnalysesService(deps: AnalysesServiceDeps) {
     return { key: row.series_key };
   }
 
+  // A plot asks for the same spectrum many times in a row (views, points, several viewers): a granted
+  // read is remembered for GRANT_TTL_MS, so a removed member keeps reading a spectrum for at most that long.
+  const GRANT_TTL_MS = 2000;
+  const grants = new Map<string, { key: string; until: number }>();
+  async function recentSeriesKeyOf(userId: string, analysisId: string) {
+    const id = `${userId}|${analysisId}`;
+    const now = Date.now();
+    const hit = grants.get(id);
+    if (hit && hit.until > now) return { key: hit.key };
+    const { key } = await seriesKeyOf(userId, analysisId);
+    if (grants.size > 10_000) grants.clear();
+    grants.set(id, { key, until: now + GRANT_TTL_MS });
+    return { key };
+  }
+
   async function seriesOf(userId: string, analysisId: string) {
     const { key } = await seriesKeyOf(userId, analysisId);
     return { key, series: await cache.get(key) };
@@ -100,7 +115,7 @@ export function createAnalysesService(deps: AnalysesServiceDeps) {
      * view and points (the membership check still runs on every request).
      */
     async spectrumJson(userId: string, analysisId: string, query: { view: SpectrumView; points: number }): Promise<string> {
-      const { key } = await seriesKeyOf(userId, analysisId);
+      const { key } = await recentSeriesKeyOf(userId, analysisId);
       const replyKey = `${key}|${query.view}|${query.points}`;
       let json = replies.get(replyKey);
       if (json === undefined) {

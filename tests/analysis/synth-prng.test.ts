@@ -5,14 +5,14 @@ import { createRandom, seedState, splitMix64 } from '../../analysis/synth/prng';
 describe('splitMix64 / createRandom (xoshiro128**)', () => {
   it('SplitMix64 from seed 0 gives 0xe220a8397b1dcdaf, then 0x6e789e6aa1b965f4', () => {
     // first value as published with the generator's reference code (from memory); both also from an
-    // arbitrary-precision Python transcription of Steele, Lea & Flood (2014)
+    // arbitrary-precision Python port of Steele, Lea & Flood (2014)
     const next = splitMix64(0n);
     expect(next()).toBe(0xe220a8397b1dcdafn);
     expect(next()).toBe(0x6e789e6aa1b965f4n);
   });
 
   it('xoshiro128** seeded with 0 starts 3737715805, 2584255861, 2876756834, 3286328325, 1553311962, 1625202774', () => {
-    // expected values from an independent Python transcription of xoshiro128** 1.1 (Blackman & Vigna 2021)
+    // expected values from an independent Python port of xoshiro128** 1.1 (Blackman & Vigna 2021)
     // with the state filled from SplitMix64(0): s0..s3 = low/high words of its first two outputs
     const r = createRandom(0);
     expect(Array.from({ length: 6 }, () => r.nextUint32())).toEqual([

@@ -9,27 +9,8 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { API_TOKEN_SECRET_PREFIX } from '../../server/contracts/api-tokens';
 import { addMember, closeTestDb, createBench, errorOf, makeTestApp, signUp, testDb, type SignedIn } from '../helpers/api-app';
+import { iqCapture } from '../helpers/api-captures';
 
-/** Interleaved float32 I,Q of a laser with white frequency noise, deterministic (xorshift32). */
-function iqCapture(samples: number, sampleRateHz: number, h0: number, seed = 1): Buffer {
-  let s = seed >>> 0 || 1;
-  const uniform = () => {
-    s ^= s << 13;
-    s ^= s >>> 17;
-    s ^= s << 5;
-    return ((s >>> 0) + 0.5) / 4294967296;
-  };
-  const out = new Float32Array(2 * samples);
-  const sigma = Math.sqrt((h0 * sampleRateHz) / 2);
-  let phase = 0;
-  for (let i = 0; i < samples; i++) {
-    const nu = sigma * Math.sqrt(-2 * Math.log(uniform())) * Math.cos(2 * Math.PI * uniform());
-    phase += (2 * Math.PI * nu) / sampleRateHz;
-    out[2 * i] = Math.cos(phase);
-    out[2 * i + 1] = Math.sin(phase);
-  }
-  return Buffer.from(out.buffer);
-}
 
 const IQ_FIELDS = { kind: 'iq', sampleRateHz: '100000', format: 'raw', dtype: 'float32', channels: '2' };
 const iq = iqCapture(20_000, 100_000, 100, 11);

@@ -25,31 +25,12 @@ import {
   type Agent,
   type SignedIn,
 } from '../helpers/api-app';
+import { iqCapture } from '../helpers/api-captures';
 
 const baseEnv = loadEnv();
 const storage = new LocalDiskStorage(baseEnv.storageDir);
 const rel = (a: number, b: number) => Math.abs(a / b - 1);
 
-/** Interleaved float32 I,Q of a laser with white frequency noise h0 (Hz²/Hz), deterministic. */
-function iqCapture(samples: number, sampleRateHz: number, h0: number, seed = 1): Buffer {
-  let s = seed >>> 0 || 1;
-  const uniform = () => {
-    s ^= s << 13;
-    s ^= s >>> 17;
-    s ^= s << 5;
-    return ((s >>> 0) + 0.5) / 4294967296;
-  };
-  const out = new Float32Array(2 * samples);
-  const sigma = Math.sqrt((h0 * sampleRateHz) / 2); // one-sided h0 ⇔ variance h0·fs/2
-  let phase = 0;
-  for (let i = 0; i < samples; i++) {
-    const nu = sigma * Math.sqrt(-2 * Math.log(uniform())) * Math.cos(2 * Math.PI * uniform());
-    phase += (2 * Math.PI * nu) / sampleRateHz;
-    out[2 * i] = Math.cos(phase);
-    out[2 * i + 1] = Math.sin(phase);
-  }
-  return Buffer.from(out.buffer);
-}
 
 const FS = 100_000;
 const IQ_FIELDS = { kind: 'iq', sampleRateHz: String(FS), format: 'raw', dtype: 'float32', channels: '2' };

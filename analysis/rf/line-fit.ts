@@ -350,9 +350,21 @@ function solveScaled(
       return { q, covariance: inv.mul(s2), sse, iterations };
     }
     if (iterations >= maxIterations) {
+      // a Voigt whose one part keeps shrinking toward 0 (a pure line of the other shape) creeps there
+      // without settling: say so, so the caller reports the pure shape
+      const k = vanishingVoigtPart(q, names);
+      if (k !== null) fail(`fit did not converge: ${names[k]} ran to its limit (lower) — below 1 % of the other part after ${maxIterations} iterations`);
       fail(`fit did not converge within ${maxIterations} iterations (the Gauss–Newton step is still larger than 1e-4 standard errors)`);
     }
   }
+}
+
+/** For a Voigt parameter vector [A, centre, f_L, f_G, B]: the index of a width part below 1 % of the other, or null. */
+function vanishingVoigtPart(q: number[], names: string[]): number | null {
+  if (names[2] !== 'the Lorentzian width' || names[3] !== 'the Gaussian width') return null;
+  if (q[2] < 0.01 * q[3]) return 2;
+  if (q[3] < 0.01 * q[2]) return 3;
+  return null;
 }
 
 function fitShape(r: Resolved, shape: RfLineShape): RfLineFit {

@@ -153,3 +153,25 @@ describe('fitRfLine answers a fit it cannot make with AnalysisInputError', () =>
     expect(() => fitRfLine(s, 'lorentzian', { initial: { fwhmHz: -1 } })).toThrow(/initial.fwhmHz/);
   });
 });
+
+describe('fitRfLine(…, "voigt") on a pure line of one shape (a Voigt with one part 0 is that pure shape)', () => {
+  const n = 801;
+  const f = Float64Array.from({ length: n }, (_, i) => 80e6 - 1e6 + (2e6 * i) / (n - 1));
+  const line = (shape: (x: number, w: number) => number) => Float64Array.from(f, (x) => 1e-6 + 1e-3 * shape(x - 80e6, 1.5e5));
+
+  it('a Lorentzian of FWHM 150 kHz is reported as f_L = 150 kHz, f_G = 0, with a warning', () => {
+    const fit = fitRfLine({ frequencyHz: f, powerMw: line(lorentzianShape) }, 'voigt');
+    expect(rel(fit.fwhmHz, 1.5e5)).toBeLessThan(1e-6);
+    expect(rel(fit.lorentzianFwhmHz as number, 1.5e5)).toBeLessThan(1e-6);
+    expect(fit.gaussianFwhmHz).toBe(0);
+    expect(fit.warnings.join(' ')).toMatch(/Gaussian part went to 0/);
+  });
+
+  it('a Gaussian of FWHM 150 kHz is reported as f_G = 150 kHz, f_L = 0, with a warning', () => {
+    const fit = fitRfLine({ frequencyHz: f, powerMw: line(gaussianShape) }, 'voigt');
+    expect(rel(fit.fwhmHz, 1.5e5)).toBeLessThan(1e-6);
+    expect(rel(fit.gaussianFwhmHz as number, 1.5e5)).toBeLessThan(1e-6);
+    expect(fit.lorentzianFwhmHz).toBe(0);
+    expect(fit.warnings.join(' ')).toMatch(/Lorentzian part went to 0/);
+  });
+});

@@ -4,29 +4,24 @@
  * retry of a failed one, a laser's spectra over time — for every role, and 404 for other benches.
  */
 import type { Express } from 'express';
-import { pino } from 'pino';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { analyzeCapture } from '../../analysis/pipeline';
 import { logBinSpectrum } from '../../analysis/spectrum/log-binning';
-import { createApp } from '../../server/app';
 import { loadEnv } from '../../server/config/env';
-import { createAnalysisJobs, type AnalysisJobs } from '../../server/jobs/analysis-jobs';
-import { createServices } from '../../server/services';
+import type { AnalysisJobs } from '../../server/jobs/analysis-jobs';
 import { LocalDiskStorage } from '../../server/storage/local-disk-storage';
 import {
-  GENEROUS_LIMITS,
-  PUBLIC_URL,
   addMember,
   agent,
   closeTestDb,
   createBench,
   errorOf,
   signUp,
-  testDb,
   type Agent,
   type SignedIn,
 } from '../helpers/api-app';
 import { iqCapture } from '../helpers/api-captures';
+import { startAppWithJobs } from '../helpers/api-jobs';
 
 const baseEnv = loadEnv();
 const storage = new LocalDiskStorage(baseEnv.storageDir);
@@ -65,20 +60,7 @@ async function settledAnalysis(a: Agent, id: string, timeoutMs = 60_000) {
 }
 
 beforeAll(async () => {
-  const db = testDb();
-  // leftovers of other files must not keep this file's worker busy
-  await db('analyses').whereIn('status', ['queued', 'running']).update({ status: 'failed', error: 'cleared by analyses.test' });
-  jobs = createAnalysisJobs({ db, storage, workers: 1 });
-  app = createApp({
-    db,
-    env: { ...baseEnv, PHASELOOM_PUBLIC_URL: PUBLIC_URL },
-    logger: pino({ level: 'silent' }),
-    services: createServices(db),
-    rateLimits: GENEROUS_LIMITS,
-    storage,
-    onAnalysesQueued: () => jobs.poke(),
-  });
-  await jobs.start();
+  ({ app, jobs } = await startAppWithJobs('analyses.test', storage));
   owner = await signUp(app, 'owner');
   analyst = await signUp(app, 'analyst');
   viewer = await signUp(app, 'viewer');

@@ -9,16 +9,14 @@
  * Every role; bad input answered 400 and nothing stored.
  */
 import type { Express } from 'express';
-import { pino } from 'pino';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createApp } from '../../server/app';
 import { loadEnv } from '../../server/config/env';
 import { CorrectionListResponse, CorrectionResponse } from '../../server/contracts/corrections';
-import { createAnalysisJobs, type AnalysisJobs } from '../../server/jobs/analysis-jobs';
-import { createServices } from '../../server/services';
+import type { AnalysisJobs } from '../../server/jobs/analysis-jobs';
 import { LocalDiskStorage } from '../../server/storage/local-disk-storage';
-import { GENEROUS_LIMITS, PUBLIC_URL, addMember, closeTestDb, createBench, errorOf, signUp, testDb, type Agent, type SignedIn } from '../helpers/api-app';
+import { addMember, closeTestDb, createBench, errorOf, signUp, testDb, type Agent, type SignedIn } from '../helpers/api-app';
+import { startAppWithJobs } from '../helpers/api-jobs';
 
 const baseEnv = loadEnv();
 const storage = new LocalDiskStorage(baseEnv.storageDir);
@@ -94,19 +92,7 @@ async function correctionCount(): Promise<number> {
 }
 
 beforeAll(async () => {
-  const db = testDb();
-  await db('analyses').whereIn('status', ['queued', 'running']).update({ status: 'failed', error: 'cleared by corrections.test' });
-  jobs = createAnalysisJobs({ db, storage, workers: 1 });
-  app = createApp({
-    db,
-    env: { ...baseEnv, PHASELOOM_PUBLIC_URL: PUBLIC_URL },
-    logger: pino({ level: 'silent' }),
-    services: createServices(db),
-    rateLimits: GENEROUS_LIMITS,
-    storage,
-    onAnalysesQueued: () => jobs.poke(),
-  });
-  await jobs.start();
+  ({ app, jobs } = await startAppWithJobs('corrections.test', storage));
   owner = await signUp(app, 'owner');
   analyst = await signUp(app, 'analyst');
   viewer = await signUp(app, 'viewer');

@@ -5,16 +5,11 @@
  * nothing stored.
  */
 import type { Express } from 'express';
-import { pino } from 'pino';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createApp } from '../../server/app';
 import { loadEnv } from '../../server/config/env';
-import { createAnalysisJobs, type AnalysisJobs } from '../../server/jobs/analysis-jobs';
-import { createServices } from '../../server/services';
+import type { AnalysisJobs } from '../../server/jobs/analysis-jobs';
 import { LocalDiskStorage } from '../../server/storage/local-disk-storage';
 import {
-  GENEROUS_LIMITS,
-  PUBLIC_URL,
   addMember,
   agent,
   closeTestDb,
@@ -26,6 +21,7 @@ import {
   type SignedIn,
 } from '../helpers/api-app';
 import { iqCapture } from '../helpers/api-captures';
+import { startAppWithJobs } from '../helpers/api-jobs';
 
 const baseEnv = loadEnv();
 const storage = new LocalDiskStorage(baseEnv.storageDir);
@@ -65,19 +61,7 @@ let otherSpectrum: { analysisId: string; intrinsicLinewidthHz: number };
 const budgetsOnBench = async (id: string) => Number((await testDb()('link_budgets').where({ bench_id: id }).count({ n: '*' }))[0].n);
 
 beforeAll(async () => {
-  const db = testDb();
-  await db('analyses').whereIn('status', ['queued', 'running']).update({ status: 'failed', error: 'cleared by link-budgets.test' });
-  jobs = createAnalysisJobs({ db, storage, workers: 1 });
-  app = createApp({
-    db,
-    env: { ...baseEnv, PHASELOOM_PUBLIC_URL: PUBLIC_URL },
-    logger: pino({ level: 'silent' }),
-    services: createServices(db),
-    rateLimits: GENEROUS_LIMITS,
-    storage,
-    onAnalysesQueued: () => jobs.poke(),
-  });
-  await jobs.start();
+  ({ app, jobs } = await startAppWithJobs('link-budgets.test', storage));
   owner = await signUp(app, 'owner');
   analyst = await signUp(app, 'analyst');
   viewer = await signUp(app, 'viewer');

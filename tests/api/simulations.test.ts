@@ -7,17 +7,12 @@
  * steps of 2 ps) so the runs take seconds.
  */
 import type { Express } from 'express';
-import { pino } from 'pino';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEFAULT_RATE_EQUATION_PARAMETERS } from '../../analysis/laser/rate-equation-model';
-import { createApp } from '../../server/app';
 import { loadEnv } from '../../server/config/env';
-import { createAnalysisJobs, type AnalysisJobs } from '../../server/jobs/analysis-jobs';
-import { createServices } from '../../server/services';
+import type { AnalysisJobs } from '../../server/jobs/analysis-jobs';
 import { LocalDiskStorage } from '../../server/storage/local-disk-storage';
 import {
-  GENEROUS_LIMITS,
-  PUBLIC_URL,
   addMember,
   agent,
   closeTestDb,
@@ -28,6 +23,7 @@ import {
   type Agent,
   type SignedIn,
 } from '../helpers/api-app';
+import { startAppWithJobs } from '../helpers/api-jobs';
 
 const baseEnv = loadEnv();
 const storage = new LocalDiskStorage(baseEnv.storageDir);
@@ -74,19 +70,7 @@ async function simulateAndAnalyse(a: Agent, body: object) {
 const countRows = async (table: string) => Number((await testDb()(table).count({ n: '*' }))[0].n);
 
 beforeAll(async () => {
-  const db = testDb();
-  await db('analyses').whereIn('status', ['queued', 'running']).update({ status: 'failed', error: 'cleared by simulations.test' });
-  jobs = createAnalysisJobs({ db, storage, workers: 1 });
-  app = createApp({
-    db,
-    env: { ...baseEnv, PHASELOOM_PUBLIC_URL: PUBLIC_URL },
-    logger: pino({ level: 'silent' }),
-    services: createServices(db),
-    rateLimits: GENEROUS_LIMITS,
-    storage,
-    onAnalysesQueued: () => jobs.poke(),
-  });
-  await jobs.start();
+  ({ app, jobs } = await startAppWithJobs('simulations.test', storage));
   owner = await signUp(app, 'owner');
   analyst = await signUp(app, 'analyst');
   viewer = await signUp(app, 'viewer');

@@ -7,17 +7,15 @@
  * the τ it keeps unchanged (exact, to rounding). Every role; not-done analyses answered 409.
  */
 import type { Express } from 'express';
-import { pino } from 'pino';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { allanDeviation } from '../../analysis/noise/allan';
-import { createApp } from '../../server/app';
 import { loadEnv } from '../../server/config/env';
 import { AllanResponse } from '../../server/contracts/stability';
-import { createAnalysisJobs, type AnalysisJobs } from '../../server/jobs/analysis-jobs';
+import type { AnalysisJobs } from '../../server/jobs/analysis-jobs';
 import { readFrequencyRecord } from '../../server/modules/stability/frequency-record';
-import { createServices } from '../../server/services';
 import { LocalDiskStorage } from '../../server/storage/local-disk-storage';
-import { GENEROUS_LIMITS, PUBLIC_URL, addMember, closeTestDb, createBench, errorOf, signUp, testDb, type Agent, type SignedIn } from '../helpers/api-app';
+import { addMember, closeTestDb, createBench, errorOf, signUp, testDb, type Agent, type SignedIn } from '../helpers/api-app';
+import { startAppWithJobs } from '../helpers/api-jobs';
 
 const baseEnv = loadEnv();
 const storage = new LocalDiskStorage(baseEnv.storageDir);
@@ -77,19 +75,7 @@ async function uploadCapture(a: Agent, fields: Record<string, string>, name: str
 }
 
 beforeAll(async () => {
-  const db = testDb();
-  await db('analyses').whereIn('status', ['queued', 'running']).update({ status: 'failed', error: 'cleared by stability.test' });
-  jobs = createAnalysisJobs({ db, storage, workers: 1 });
-  app = createApp({
-    db,
-    env: { ...baseEnv, PHASELOOM_PUBLIC_URL: PUBLIC_URL },
-    logger: pino({ level: 'silent' }),
-    services: createServices(db),
-    rateLimits: GENEROUS_LIMITS,
-    storage,
-    onAnalysesQueued: () => jobs.poke(),
-  });
-  await jobs.start();
+  ({ app, jobs } = await startAppWithJobs('stability.test', storage));
   owner = await signUp(app, 'owner');
   analyst = await signUp(app, 'analyst');
   viewer = await signUp(app, 'viewer');
